@@ -1,0 +1,12 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['tests/**/*.test.ts'],
+    environment: 'node',
+    testTimeout: 30_000,
+    hookTimeout: 60_000,
+    // Browser end-to-end files each launch one Chromium; two cores, so keep parallelism modest.
+    maxWorkers: 2,
+  },
+});
