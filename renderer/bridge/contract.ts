@@ -8,6 +8,7 @@
  * sides may import it. Failures are returned, not thrown, because a thrown Error loses everything
  * but its message across IPC.
  */
+import type { ScoreTokens } from '../engine/grading/parseScore';
 import type { Gradebook, GradingPlan } from '../engine/model';
 
 /** Where in a spreadsheet a problem is, in the words the user sees in their spreadsheet program. */
@@ -32,12 +33,8 @@ export interface ImportProblem {
   readonly at?: CellLocation;
 }
 
-/** Cell text tokens that mean each non-numeric state; matched trimmed and case-insensitively. */
-export interface ScoreTokens {
-  readonly excused: readonly string[];
-  readonly missing: readonly string[];
-  readonly pending: readonly string[];
-}
+/** Score tokens are an engine rule (renderer/engine/grading/parseScore.ts); re-exported here. */
+export type { ScoreTokens };
 
 export type ColumnRole =
   | 'id'

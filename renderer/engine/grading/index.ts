@@ -1,0 +1,21 @@
+/** The grading half of the engine: from typed scores and a plan to explained final marks. */
+export { DEFAULT_TOKENS, parseScore, formatScore, acceptedForms } from './parseScore';
+export type { ScoreTokens, ParseScoreResult } from './parseScore';
+export { roundHalfUp, snap15 } from './rounding';
+export { SCALE_PRESETS, DEFAULT_SCALE, letterFor, validateScale, sortedCutoffs } from './gradeScale';
+export { categoryScore } from './categoryScore';
+export type { CategoryItem, CategoryScore } from './categoryScore';
+export { dropForTotalPoints, dropLowestPercents, dropCount } from './dropLowest';
+export type { DropCandidate, DropChoice } from './dropLowest';
+export { renormalise, weightedPercent, waiverStatus } from './renormalise';
+export type { WeightInput } from './renormalise';
+export { applyAdjustments } from './adjustments';
+export type { AdjustedValues } from './adjustments';
+export { gradeCourse, layoutFor, weighStudent, finishStudent } from './gradeCourse';
+export type { CourseResult, CategoryLayout, WeighedStudent } from './gradeCourse';
+export { checkPlan } from './checkPlan';
+export { describeLine, formatNumber } from './explain';
+export type { LineNames } from './explain';
+export { neededOnPending, boundaryList } from './whatIf';
+export type { NeededForCutoff, BoundaryEntry } from './whatIf';
+export { suggestPlan, baseName, categoryNameFor, equalWeights } from './suggestPlan';
