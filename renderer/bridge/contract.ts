@@ -194,3 +194,27 @@ export interface DesktopBridge {
   /** The invented demo course, as a project, for first start. */
   demoCourse(): Promise<Result<CourseProject>>;
 }
+
+/** What a menu item asks the renderer to do. The renderer owns the state, so it does the work. */
+export type MenuCommand =
+  | 'open-project'
+  | 'import-spreadsheet'
+  | 'save'
+  | 'save-as'
+  | 'export'
+  | 'undo'
+  | 'redo'
+  | { readonly kind: 'open-recent'; readonly path: string };
+
+/**
+ * What the Electron preload exposes beside the DesktopBridge methods. The browser harness provides
+ * none of them, so the renderer sees them as optional (`Partial<ShellExtras>`).
+ */
+export interface ShellExtras {
+  /** Subscribe to menu commands; returns the unsubscribe function. */
+  onMenuCommand(listener: (command: MenuCommand) => void): () => void;
+  /** The file-system path of a dropped file (Electron's webUtils.getPathForFile); '' when it has none. */
+  pathForFile(file: File): string;
+  /** Tell the main process whether there are unsaved changes (asked about on close). */
+  setDirty(dirty: boolean): Promise<void>;
+}

@@ -1,0 +1,605 @@
+/**
+ * `weighbridge` — the batch command line over the same services and engine as the app, so a course
+ * can be graded without the window and every rule is scriptable. Documented field by field in
+ * docs/cli.md.
+ *
+ *   weighbridge grade <gradebook> --plan <plan-file> [--out finals.xlsx|.csv] [--extras] [--overwrite] [--json] [--quantile-type N]
+ *   weighbridge stats <file> --column <name> [--by <column>] [--sheet <name>] [--quantile-type N] [--json]
+ *   weighbridge check <gradebook> [--json]
+ *   weighbridge init-plan <gradebook> [--out plan.json] [--overwrite]
+ *
+ * Exit codes: 0 ok, 1 bad input (a file that cannot be read, imported or written), 2 usage.
+ * Results go to stdout, errors and warnings to stderr, progress to stderr only when it is a terminal.
+ */
+import { createHash } from 'node:crypto';
+import { realpathSync } from 'node:fs';
+import { readFile, stat } from 'node:fs/promises';
+import { basename, extname } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { parseArgs, type ParseArgsConfig } from 'node:util';
+import pkg from '../package.json' with { type: 'json' };
+import type { CourseProject, ExportColumn, ImportLayout, ImportProblem } from '../renderer/bridge/contract';
+import type { Defined } from '../renderer/engine/defined';
+import type { Gradebook, GradingPlan } from '../renderer/engine/model';
+import type { StudentResult } from '../renderer/engine/results';
+import { DEFAULT_TOKENS, gradeCourse, suggestPlan } from '../renderer/engine/grading';
+import { describe, QUANTILE_TYPES, type QuantileType, type Summary } from '../renderer/engine/stats';
+import { exportFinals, sectionSummaries } from './services/export';
+import { loadPlanFile, sameFile, savePlanFile, serialisePlan } from './services/project';
+import { detectAndImport } from './services/spreadsheet';
+import { detectLayout } from './services/spreadsheet/detectLayout';
+import { POSSIBLE_ROW_LABEL, SUMMARY_ROW_LABEL } from './services/spreadsheet/headerWords';
+import { cellText, isBlank, readBook, type Cell, type RawSheet } from './services/spreadsheet/readBook';
+import { columnLetter } from './services/spreadsheet/columnLetter';
+
+export const EXIT_OK = 0;
+export const EXIT_BAD_INPUT = 1;
+export const EXIT_USAGE = 2;
+
+export interface CliIo {
+  out(text: string): void;
+  err(text: string): void;
+  /** Show progress lines (stderr is a terminal). */
+  readonly progress: boolean;
+}
+
+class UsageError extends Error {}
+class InputError extends Error {}
+
+// ---------------------------------------------------------------------------------------------
+// Help
+// ---------------------------------------------------------------------------------------------
+
+const HELP: Record<string, string> = {
+  main: `weighbridge ${pkg.version} — final marks an instructor can defend
+
+Usage: weighbridge <command> [options]
+
+Commands:
+  grade <gradebook> --plan <plan-file>   final marks per student and statistics per section
+  stats <file> --column <name>           descriptive statistics of a numeric column
+  check <gradebook>                      import diagnostics only
+  init-plan <gradebook>                  write a starting plan file from the detected layout
+
+Options: --help (also after a command), --version
+Exit codes: 0 ok, 1 bad input, 2 usage. Details: docs/cli.md
+Marks must be reviewed against your institution's grading policy before they are submitted.`,
+  grade: `Usage: weighbridge grade <gradebook> --plan <plan-file> [options]
+
+Grades every student of <gradebook> (.xlsx, .xls, .ods, .csv, .tsv) with the grading plan file.
+  --plan <file>          plan file (format "weighbridge-plan"; see init-plan)
+  --out <file>           also write the final marks to .xlsx or .csv
+  --extras               with --out: add breakdown, section and assessment statistics
+  --overwrite            with --out: replace an existing file
+  --json                 print JSON instead of a table
+  --quantile-type <1-9>  Hyndman & Fan (1996) quantile type for Q1/Q3 (default 7)`,
+  stats: `Usage: weighbridge stats <file> --column <name> [options]
+
+Descriptive statistics of one numeric column of any spreadsheet.
+  --column <name>        header of the column (case and surrounding spaces ignored)
+  --by <name>            also per group of this column (e.g. Section)
+  --sheet <name>         the sheet to read (default: the first sheet with the column)
+  --quantile-type <1-9>  Hyndman & Fan (1996) quantile type for Q1/Q3 (default 7)
+  --json                 print JSON instead of text`,
+  check: `Usage: weighbridge check <gradebook> [--json]
+
+Reads and checks <gradebook> without grading: layout found, students, assessments, and every
+problem with its sheet, row, column and value. Exit code 1 when the file cannot be imported.`,
+  'init-plan': `Usage: weighbridge init-plan <gradebook> [--out plan.json] [--overwrite]
+
+Writes a starting grading plan guessed from the assessment names (review it against the syllabus).
+Without --out the plan file is printed to stdout.`,
+};
+
+// ---------------------------------------------------------------------------------------------
+// Shared helpers
+// ---------------------------------------------------------------------------------------------
+
+function parse<T extends NonNullable<ParseArgsConfig['options']>>(args: readonly string[], options: T, command: string) {
+  try {
+    return parseArgs({ args: [...args], options: { ...options, help: { type: 'boolean' } }, allowPositionals: true, strict: true });
+  } catch (error) {
+    throw new UsageError(`${error instanceof Error ? error.message : String(error)}\nSee: weighbridge ${command} --help`);
+  }
+}
+
+function onePositional(positionals: readonly string[], what: string, command: string): string {
+  if (positionals.length !== 1 || positionals[0] === undefined) {
+    throw new UsageError(`${command} needs exactly one ${what}${positionals.length > 1 ? ` (got ${positionals.length})` : ''}.\nSee: weighbridge ${command} --help`);
+  }
+  return positionals[0];
+}
+
+function quantileTypeOption(raw: string | undefined): QuantileType {
+  if (raw === undefined) return 7;
+  const n = Number(raw);
+  const type = QUANTILE_TYPES.find((t) => t === n);
+  if (type === undefined) throw new UsageError(`--quantile-type must be a whole number from 1 to 9 (Hyndman & Fan 1996 types); got "${raw}".`);
+  return type;
+}
+
+const valueOf = <T>(d: Defined<T>): T | null => (d.defined ? d.value : null);
+
+/** `{ field: reason }` for every statistic that is not defined. */
+function notesOf(fields: Readonly<Record<string, Defined<unknown>>>): Record<string, string> {
+  const notes: Record<string, string> = {};
+  for (const [name, d] of Object.entries(fields)) if (!d.defined) notes[name] = d.reason;
+  return notes;
+}
+
+function problemLines(problems: readonly ImportProblem[]): string[] {
+  return problems.map((p) => `${p.severity}: ${p.message}`);
+}
+
+async function importGradebook(path: string, io: CliIo): Promise<{ gradebook: Gradebook; layout: ImportLayout; problems: readonly ImportProblem[] }> {
+  if (io.progress) io.err(`Reading ${basename(path)}…`);
+  const imported = await detectAndImport(path);
+  if (!imported.ok) {
+    const lines = imported.problems ? problemLines(imported.problems.filter((p) => p.severity === 'error')) : [];
+    throw new InputError([imported.message, ...lines.slice(1)].join('\n'));
+  }
+  return imported.value;
+}
+
+function fmt(x: number | null, decimals = 2): string {
+  if (x === null) return '—';
+  return Number.isInteger(x) ? String(x) : x.toFixed(decimals).replace(/\.?0+$/, '');
+}
+
+function table(header: readonly string[], rows: readonly (readonly string[])[]): string {
+  const widths = header.map((h, c) => Math.max(h.length, ...rows.map((r) => (r[c] ?? '').length)));
+  const line = (cells: readonly string[]) => cells.map((v, c) => v.padEnd(widths[c] ?? 0)).join('  ').trimEnd();
+  return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n');
+}
+
+// ---------------------------------------------------------------------------------------------
+// grade
+// ---------------------------------------------------------------------------------------------
+
+/** The section/course statistics object of `grade --json`. */
+function sectionJson(section: string | null, summary: Summary, withoutMark: number) {
+  const fields = {
+    mean: summary.mean, median: summary.median, sd: summary.sampleSd, populationSd: summary.populationSd,
+    min: summary.min, max: summary.max, q1: summary.q1, q3: summary.q3, iqr: summary.iqr,
+    lowerFence: summary.lowerFence, upperFence: summary.upperFence,
+  };
+  return {
+    section,
+    n: summary.n,
+    withoutMark,
+    mean: valueOf(summary.mean),
+    median: valueOf(summary.median),
+    sd: valueOf(summary.sampleSd),
+    populationSd: valueOf(summary.populationSd),
+    min: valueOf(summary.min),
+    max: valueOf(summary.max),
+    q1: valueOf(summary.q1),
+    q3: valueOf(summary.q3),
+    iqr: valueOf(summary.iqr),
+    lowerFence: valueOf(summary.lowerFence),
+    upperFence: valueOf(summary.upperFence),
+    outliers: summary.outliers.map((o) => ({ id: o.label, value: o.value, side: o.side })),
+    quantileType: summary.quantileType,
+    quantileMethod: summary.quantileMethod,
+    notes: notesOf(fields),
+  };
+}
+
+function studentJson(book: Gradebook, result: StudentResult, index: number) {
+  const student = book.students[index];
+  const noMark = result.lines.find((l) => l.kind === 'noMark');
+  const notes: Record<string, string> = {};
+  if (result.final === null && noMark?.kind === 'noMark') notes['final'] = noMark.reason;
+  else if (result.letter === null && noMark?.kind === 'noMark') notes['letter'] = noMark.reason;
+  return {
+    id: result.studentId,
+    name: student?.name ?? '',
+    section: result.section,
+    final: result.final,
+    letter: result.letter,
+    gradePoints: result.gradePoints,
+    weighted: result.weighted,
+    effectiveWeights: result.effectiveWeights,
+    notes,
+  };
+}
+
+const EXPORT_COLUMNS: readonly ExportColumn[] = [
+  { field: 'id', header: 'Student ID' },
+  { field: 'name', header: 'Name' },
+  { field: 'section', header: 'Section' },
+  { field: 'final', header: 'Final %' },
+  { field: 'letter', header: 'Letter' },
+  { field: 'gradePoints', header: 'Grade points' },
+];
+
+async function grade(args: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parse(args, {
+    plan: { type: 'string' },
+    out: { type: 'string' },
+    extras: { type: 'boolean' },
+    overwrite: { type: 'boolean' },
+    json: { type: 'boolean' },
+    'quantile-type': { type: 'string' },
+  }, 'grade');
+  if (values.help) return help('grade', io);
+  const path = onePositional(positionals, 'gradebook file', 'grade');
+  if (values.plan === undefined) throw new UsageError('grade needs --plan <plan-file> (write a first one with: weighbridge init-plan <gradebook> --out plan.json).');
+  const quantileType = quantileTypeOption(values['quantile-type']);
+  const out = values.out;
+  if (out !== undefined && !['.xlsx', '.csv'].includes(extname(out).toLowerCase())) {
+    throw new UsageError(`--out must name a .xlsx or .csv file; got "${out}".`);
+  }
+  if ((values.extras || values.overwrite) && out === undefined) throw new UsageError('--extras and --overwrite go with --out <file>.');
+
+  const imported = await importGradebook(path, io);
+  const plan = await loadPlanFile(values.plan);
+  if (!plan.ok) throw new InputError(plan.message);
+  const book = imported.gradebook;
+  if (io.progress) io.err(`Grading ${book.students.length} students…`);
+  const { students, planProblems } = gradeCourse(book, plan.value);
+  for (const p of problemLines(imported.problems)) io.err(p);
+  for (const p of planProblems) io.err(`plan: ${p}`);
+
+  if (out !== undefined) {
+    const project = await projectFor(path, book, imported.layout, plan.value);
+    const format = extname(out).toLowerCase() === '.xlsx' ? 'xlsx' : 'csv';
+    const extras = values.extras === true;
+    const written = await exportFinals({
+      path: out,
+      format,
+      project,
+      columns: EXPORT_COLUMNS,
+      include: { breakdown: extras, sectionStatistics: extras, assessmentStatistics: extras },
+      overwrite: values.overwrite === true,
+    }, { projectPath: values.plan });
+    if (!written.ok) throw new InputError(written.code === 'exists' ? `${written.message} (use --overwrite)` : written.message);
+    io.err(`Wrote ${written.value.rows} final marks to ${written.value.path}. The file holds identifiable student data.`);
+  }
+
+  const groups = sectionSummaries(book, students, quantileType);
+  const sections = groups.filter((g) => g.section !== null).map((g) => sectionJson(g.section, g.summary, g.withoutMark));
+  const courseGroup = groups.find((g) => g.section === null);
+  const course = courseGroup ? sectionJson(null, courseGroup.summary, courseGroup.withoutMark) : null;
+  if (values.json) {
+    io.out(JSON.stringify({
+      students: students.map((r, i) => studentJson(book, r, i)),
+      sections,
+      course,
+      planProblems,
+      importWarnings: imported.problems.filter((p) => p.severity === 'warning').map((p) => p.message),
+    }, null, 2));
+    return EXIT_OK;
+  }
+  io.out(table(
+    ['ID', 'Name', 'Section', 'Final %', 'Letter'],
+    students.map((r, i) => [r.studentId, book.students[i]?.name ?? '', r.section, fmt(r.final), r.letter ?? '—']),
+  ));
+  io.out('');
+  const statRows = [...sections, ...(course ? [course] : [])].map((s) => [
+    s.section ?? 'All sections', String(s.n), fmt(s.mean), fmt(s.median), fmt(s.sd), fmt(s.q1), fmt(s.q3),
+    s.outliers.map((o) => o.id).join(' ') || '—',
+  ]);
+  io.out(table(['Section', 'n', 'Mean', 'Median', 'SD (n−1)', 'Q1', 'Q3', 'Outliers'], statRows));
+  io.out(`Quartiles: ${course?.quantileMethod ?? ''}; outliers beyond Q1 − 1.5·IQR or Q3 + 1.5·IQR (Tukey).`);
+  return EXIT_OK;
+}
+
+async function projectFor(path: string, gradebook: Gradebook, layout: ImportLayout, plan: GradingPlan): Promise<CourseProject> {
+  const bytes = await readFile(path);
+  return {
+    title: basename(path),
+    gradebook,
+    plan,
+    source: { path, fileName: basename(path), sha256: createHash('sha256').update(bytes).digest('hex'), importedAt: new Date().toISOString(), layout },
+    notes: '',
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
+// stats
+// ---------------------------------------------------------------------------------------------
+
+const NUMBER_TEXT = /^[+-]?(\d+(?:[.,]\d+)?|[.,]\d+)$/;
+const TOKENS = new Set([...DEFAULT_TOKENS.excused, ...DEFAULT_TOKENS.missing, ...DEFAULT_TOKENS.pending].map((t) => t.trim().toLowerCase()));
+
+interface ColumnValues {
+  readonly sheet: string;
+  readonly values: number[];
+  readonly rows: number[];
+  readonly labels: string[];
+  readonly groups: (string | null)[];
+  readonly skippedBlank: number;
+  readonly skippedTokens: number;
+}
+
+const norm = (s: string) => s.trim().toLowerCase();
+
+/** The header row of `sheet` holding `column`: the detected one when it does, else the first such row. */
+function headerRowOf(sheet: RawSheet, column: string, detected: number | undefined): number | null {
+  const has = (r: number) => (sheet.rows[r] ?? []).some((c) => norm(cellText(c)) === norm(column));
+  if (detected !== undefined && has(detected)) return detected;
+  for (let r = 0; r < Math.min(sheet.rows.length, 50); r += 1) if (has(r)) return r;
+  return null;
+}
+
+function rowLabel(row: readonly Cell[]): string {
+  const first = row.find((c) => !isBlank(c));
+  return first === undefined ? '' : cellText(first).trim();
+}
+
+async function readColumn(path: string, column: string, by: string | undefined, sheetName: string | undefined): Promise<ColumnValues> {
+  let bytes: Uint8Array;
+  try {
+    bytes = await readFile(path);
+  } catch {
+    throw new InputError(`The file "${path}" cannot be read. Check the path and that you may read it.`);
+  }
+  const read = readBook(bytes, basename(path));
+  if (!read.ok) throw new InputError(read.problem.message);
+  const detection = detectLayout(read.book, DEFAULT_TOKENS);
+  const candidates = sheetName === undefined ? read.book.sheets : read.book.sheets.filter((s) => s.name === sheetName);
+  if (candidates.length === 0) throw new InputError(`There is no sheet "${sheetName}" in ${basename(path)}; sheets: ${read.book.sheets.map((s) => `"${s.name}"`).join(', ')}.`);
+  for (const sheet of candidates) {
+    const guess = detection.layout.sheets.find((s) => s.sheet === sheet.name);
+    const headerRow = headerRowOf(sheet, column, guess?.headerRow);
+    if (headerRow === null) continue;
+    const header = sheet.rows[headerRow] ?? [];
+    const col = header.findIndex((c) => norm(cellText(c)) === norm(column));
+    const byCol = by === undefined ? -1 : header.findIndex((c) => norm(cellText(c)) === norm(by));
+    if (by !== undefined && byCol < 0) throw new InputError(`Sheet "${sheet.name}", row ${headerRow + 1}: there is no column "${by}" for --by. Columns: ${header.map((c) => `"${cellText(c)}"`).filter((h) => h !== '""').join(', ')}.`);
+    const idCol = guess?.headerRow === headerRow ? (guess.columns.find((c) => c.role === 'id')?.index ?? -1) : -1;
+    const out: ColumnValues = { sheet: sheet.name, values: [], rows: [], labels: [], groups: [], skippedBlank: 0, skippedTokens: 0 };
+    let skippedBlank = 0;
+    let skippedTokens = 0;
+    for (let r = headerRow + 1; r < sheet.rows.length; r += 1) {
+      const row = sheet.rows[r] ?? [];
+      if (row.every((c) => isBlank(c))) continue;
+      if (guess?.headerRow === headerRow && guess.possibleRow === r) continue;
+      const label = rowLabel(row);
+      if (POSSIBLE_ROW_LABEL.test(label) || SUMMARY_ROW_LABEL.test(label)) continue;
+      const cell = row[col];
+      let value: number;
+      if (typeof cell === 'number') value = cell;
+      else if (isBlank(cell)) {
+        skippedBlank += 1;
+        continue;
+      } else {
+        const text = cellText(cell).trim();
+        if (TOKENS.has(text.toLowerCase())) {
+          skippedTokens += 1;
+          continue;
+        }
+        if (!NUMBER_TEXT.test(text)) {
+          throw new InputError(`Sheet "${sheet.name}", row ${r + 1}, column ${columnLetter(col)} ("${cellText(header[col])}"): "${text}" is not a number. Correct the cell, or choose a numeric column.`);
+        }
+        value = Number(text.replace(',', '.'));
+      }
+      out.values.push(value);
+      out.rows.push(r + 1);
+      const id = idCol >= 0 ? cellText(row[idCol]).trim() : '';
+      out.labels.push(id !== '' ? id : `row ${r + 1}`);
+      out.groups.push(byCol >= 0 ? cellText(row[byCol]).trim() : null);
+    }
+    return { ...out, skippedBlank, skippedTokens };
+  }
+  throw new InputError(`No sheet of ${basename(path)} has a column headed "${column}". Check the header text (see: weighbridge check ${basename(path)}).`);
+}
+
+/** The statistics object of `stats --json` (keys as in docs/cli.md). */
+function statsJson(summary: Summary, rows: readonly number[]) {
+  const fields = {
+    mean: summary.mean, median: summary.median, modes: summary.modes, min: summary.min, max: summary.max, range: summary.range,
+    variance: summary.sampleVariance, sd: summary.sampleSd, populationVariance: summary.populationVariance, populationSd: summary.populationSd,
+    cv: summary.cv, q1: summary.q1, q3: summary.q3, iqr: summary.iqr, lowerFence: summary.lowerFence, upperFence: summary.upperFence,
+  };
+  return {
+    n: summary.n,
+    mean: valueOf(summary.mean),
+    median: valueOf(summary.median),
+    modes: valueOf(summary.modes),
+    min: valueOf(summary.min),
+    max: valueOf(summary.max),
+    range: valueOf(summary.range),
+    variance: valueOf(summary.sampleVariance),
+    sd: valueOf(summary.sampleSd),
+    populationVariance: valueOf(summary.populationVariance),
+    populationSd: valueOf(summary.populationSd),
+    cv: valueOf(summary.cv),
+    q1: valueOf(summary.q1),
+    q3: valueOf(summary.q3),
+    iqr: valueOf(summary.iqr),
+    lowerFence: valueOf(summary.lowerFence),
+    upperFence: valueOf(summary.upperFence),
+    outliers: summary.outliers.map((o) => ({ label: o.label, row: rows[o.index] ?? null, value: o.value, side: o.side })),
+    quantileType: summary.quantileType,
+    quantileMethod: summary.quantileMethod,
+    notes: notesOf(fields),
+  };
+}
+
+function statsText(title: string, s: ReturnType<typeof statsJson>): string {
+  const v = (x: number | null) => (x === null ? '—' : String(x));
+  const lines = [
+    title,
+    `  n                    ${s.n}`,
+    `  mean                 ${v(s.mean)}`,
+    `  median               ${v(s.median)}`,
+    `  modes                ${s.modes === null ? '—' : s.modes.join(', ')}`,
+    `  min / max / range    ${v(s.min)} / ${v(s.max)} / ${v(s.range)}`,
+    `  variance, sd (n−1)   ${v(s.variance)}, ${v(s.sd)}`,
+    `  population var, sd   ${v(s.populationVariance)}, ${v(s.populationSd)}`,
+    `  cv                   ${v(s.cv)}`,
+    `  q1 / q3 / iqr        ${v(s.q1)} / ${v(s.q3)} / ${v(s.iqr)}   (${s.quantileMethod})`,
+    `  fences               ${v(s.lowerFence)} / ${v(s.upperFence)}`,
+    `  outliers             ${s.outliers.length === 0 ? 'none' : s.outliers.map((o) => `${o.label} (${o.value})`).join(', ')}`,
+  ];
+  for (const [field, reason] of Object.entries(s.notes)) lines.push(`  note: ${field} not defined — ${reason}`);
+  return lines.join('\n');
+}
+
+async function stats(args: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parse(args, {
+    column: { type: 'string' },
+    by: { type: 'string' },
+    sheet: { type: 'string' },
+    json: { type: 'boolean' },
+    'quantile-type': { type: 'string' },
+  }, 'stats');
+  if (values.help) return help('stats', io);
+  const path = onePositional(positionals, 'file', 'stats');
+  if (values.column === undefined || values.column.trim() === '') throw new UsageError('stats needs --column <header of a numeric column>.');
+  const quantileType = quantileTypeOption(values['quantile-type']);
+  if (io.progress) io.err(`Reading ${basename(path)}…`);
+  const col = await readColumn(path, values.column, values.by, values.sheet);
+  const overall = statsJson(describe(col.values, { quantileType, labels: col.labels }), col.rows);
+  const skipped = { blank: col.skippedBlank, tokens: col.skippedTokens };
+  if (values.by === undefined) {
+    if (values.json) io.out(JSON.stringify({ file: basename(path), sheet: col.sheet, column: values.column, skipped, ...overall }, null, 2));
+    else io.out(statsText(`${values.column} (sheet "${col.sheet}")`, overall));
+    return EXIT_OK;
+  }
+  const names: string[] = [];
+  for (const g of col.groups) if (g !== null && !names.includes(g)) names.push(g);
+  const groups = names.map((name) => {
+    const idx = col.groups.flatMap((g, i) => (g === name ? [i] : []));
+    const summary = describe(idx.map((i) => col.values[i]!), { quantileType, labels: idx.map((i) => col.labels[i]!) });
+    return { group: name, ...statsJson(summary, idx.map((i) => col.rows[i]!)) };
+  });
+  if (values.json) {
+    io.out(JSON.stringify({ file: basename(path), sheet: col.sheet, column: values.column, by: values.by, skipped, groups, overall }, null, 2));
+  } else {
+    io.out([...groups.map((g) => statsText(`${values.column} — ${values.by} ${g.group}`, g)), statsText(`${values.column} — all`, overall)].join('\n\n'));
+  }
+  return EXIT_OK;
+}
+
+// ---------------------------------------------------------------------------------------------
+// check, init-plan
+// ---------------------------------------------------------------------------------------------
+
+async function check(args: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parse(args, { json: { type: 'boolean' } }, 'check');
+  if (values.help) return help('check', io);
+  const path = onePositional(positionals, 'gradebook file', 'check');
+  if (io.progress) io.err(`Reading ${basename(path)}…`);
+  const imported = await detectAndImport(path);
+  if (!imported.ok) {
+    if (values.json) io.out(JSON.stringify({ ok: false, code: imported.code, message: imported.message, problems: imported.problems ?? [] }, null, 2));
+    io.err(imported.message);
+    for (const line of problemLines((imported.problems ?? []).slice(1))) io.err(line);
+    return EXIT_BAD_INPUT;
+  }
+  const { gradebook, layout, problems } = imported.value;
+  const sections = [...new Set(gradebook.students.map((s) => s.section))];
+  if (values.json) {
+    io.out(JSON.stringify({
+      ok: true,
+      students: gradebook.students.length,
+      assessments: gradebook.assessments.map((a) => ({ id: a.id, name: a.name, possible: a.possible })),
+      sections,
+      layout,
+      problems,
+    }, null, 2));
+    return EXIT_OK;
+  }
+  io.out(`${basename(path)}: ${gradebook.students.length} students, ${gradebook.assessments.length} assessments, sections ${sections.map((s) => `"${s}"`).join(', ')}.`);
+  for (const s of layout.sheets) io.out(`Sheet "${s.sheet}": header row ${s.headerRow + 1}${s.possibleRow === null ? '' : `, points possible in row ${s.possibleRow + 1}`}.`);
+  for (const a of gradebook.assessments) io.out(`  ${a.name} (${a.possible} points)`);
+  io.out(problems.length === 0 ? 'No problems found.' : `${problems.length} warning${problems.length === 1 ? '' : 's'}:`);
+  for (const line of problemLines(problems)) io.out(`  ${line}`);
+  return EXIT_OK;
+}
+
+async function initPlan(args: readonly string[], io: CliIo): Promise<number> {
+  const { values, positionals } = parse(args, { out: { type: 'string' }, overwrite: { type: 'boolean' } }, 'init-plan');
+  if (values.help) return help('init-plan', io);
+  const path = onePositional(positionals, 'gradebook file', 'init-plan');
+  if (values.overwrite && values.out === undefined) throw new UsageError('--overwrite goes with --out <file>.');
+  const imported = await importGradebook(path, io);
+  const plan = suggestPlan(imported.gradebook);
+  if (values.out === undefined) {
+    io.out(serialisePlan(plan).trimEnd());
+    return EXIT_OK;
+  }
+  if (await sameFile(values.out, path)) throw new InputError(`"${values.out}" is the gradebook itself; Weighbridge never writes it. Choose another name for the plan file.`);
+  const exists = await stat(values.out).then(() => true, () => false);
+  if (exists && !values.overwrite) throw new InputError(`"${values.out}" already exists; use --overwrite to replace it (the old file is kept as .bak).`);
+  const saved = await savePlanFile(values.out, plan);
+  if (!saved.ok) throw new InputError(saved.message);
+  io.err(`Wrote a starting plan with ${plan.categories.length} categories to ${values.out}. Review the categories, weights and scale against the syllabus.`);
+  return EXIT_OK;
+}
+
+function help(command: string, io: CliIo): number {
+  io.out(HELP[command] ?? HELP['main'] ?? '');
+  return EXIT_OK;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Entry
+// ---------------------------------------------------------------------------------------------
+
+const COMMANDS: Record<string, (args: readonly string[], io: CliIo) => Promise<number>> = {
+  grade,
+  stats,
+  check,
+  'init-plan': initPlan,
+};
+
+export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  const [command, ...rest] = argv;
+  try {
+    if (command === undefined || command === '--help' || command === '-h' || command === 'help') {
+      if (command === undefined) {
+        io.err(HELP['main'] ?? '');
+        return EXIT_USAGE;
+      }
+      return help(rest[0] !== undefined && HELP[rest[0]] ? rest[0] : 'main', io);
+    }
+    if (command === '--version' || command === '-v') {
+      io.out(pkg.version);
+      return EXIT_OK;
+    }
+    const run = COMMANDS[command];
+    if (!run) throw new UsageError(`Unknown command "${command}". Commands: ${Object.keys(COMMANDS).join(', ')}. See: weighbridge --help`);
+    return await run(rest, io);
+  } catch (error) {
+    if (error instanceof UsageError) {
+      io.err(`weighbridge: ${error.message}`);
+      return EXIT_USAGE;
+    }
+    if (error instanceof InputError) {
+      io.err(`weighbridge: ${error.message}`);
+      return EXIT_BAD_INPUT;
+    }
+    throw error;
+  }
+}
+
+function isMainModule(): boolean {
+  const entry = process.argv[1];
+  if (entry === undefined) return false;
+  try {
+    return realpathSync(entry) === realpathSync(fileURLToPath(import.meta.url));
+  } catch {
+    return false;
+  }
+}
+
+if (isMainModule()) {
+  const io: CliIo = {
+    out: (text) => process.stdout.write(`${text}\n`),
+    err: (text) => process.stderr.write(`${text}\n`),
+    progress: process.stderr.isTTY === true,
+  };
+  runCli(process.argv.slice(2), io).then(
+    (code) => {
+      process.exitCode = code;
+    },
+    (error: unknown) => {
+      process.stderr.write(`weighbridge: unexpected error: ${error instanceof Error ? (error.stack ?? error.message) : String(error)}\n`);
+      process.exitCode = 70;
+    },
+  );
+}

@@ -1,0 +1,36 @@
+/**
+ * Binds the bridge to the real `main/services`: the spreadsheet reader, the project store, the
+ * export writer, the recovery copy and recent-files list (both kept in `userDataDir`) and the
+ * demo course. This is the only file of main/ipc that imports the services themselves.
+ */
+import { createRecentFiles, createRecoveryStore } from '../services/appState';
+import { loadDemoCourse } from '../services/demo';
+import { exportFinals } from '../services/export';
+import { loadProject, saveProject } from '../services/project';
+import { importSpreadsheet, previewMerge, previewSpreadsheet } from '../services/spreadsheet';
+import type { BridgeHandlers } from './dispatch';
+import { createHandlersFrom, type BridgeDeps, type BridgeServices } from './handlers';
+
+export function nodeServices(deps: BridgeDeps): BridgeServices {
+  const recovery = createRecoveryStore(deps.userDataDir);
+  const recent = createRecentFiles(deps.userDataDir);
+  return {
+    previewSpreadsheet,
+    importSpreadsheet,
+    previewMerge,
+    loadProject: (path) => loadProject(path),
+    saveProject: (path, project) => saveProject(path, project),
+    exportFinals,
+    writeRecovery: (projectPath, project) => recovery.write(projectPath, project),
+    readRecovery: () => recovery.read(),
+    discardRecovery: () => recovery.discard(),
+    recentFiles: () => recent.list(),
+    addRecentFile: (path) => recent.add(path),
+    demoCourse: () => loadDemoCourse(deps.appRoot),
+  };
+}
+
+/** The handlers every transport uses: one async function per DesktopBridge method. */
+export function createBridgeHandlers(deps: BridgeDeps): BridgeHandlers {
+  return createHandlersFrom(nodeServices(deps), deps);
+}

@@ -1,0 +1,103 @@
+/**
+ * Final-marks export (.xlsx or .csv) with the columns, headers and order the user chose, plus
+ * optional extras: per-student breakdown, section statistics, assessment statistics — extra sheets
+ * in an xlsx file, sibling files beside a CSV (`<name>.breakdown.csv`, `<name>.sections.csv`,
+ * `<name>.assessments.csv`).
+ *
+ * Safety: never writes the course's source spreadsheet or a Weighbridge project file (checked by
+ * path, by file identity and by content); an existing file is replaced only when the user has
+ * confirmed (`overwrite`), otherwise code 'exists'. Every file is written atomically.
+ */
+import { open } from 'node:fs/promises';
+import { basename, extname } from 'node:path';
+import type { ExportRequest, Result } from '../../../renderer/bridge/contract';
+import { sameFile, writeAtomic } from '../project/atomicWrite';
+import { fail, ioFailure, ok } from '../project/result';
+import { describeIssues, exportRequestSchema } from '../schemas';
+import { assessmentStatisticsTable, breakdownTable, finalsTable, gradeProject, sectionStatisticsTable, type Table } from './tables';
+import { tableToCsv, tablesToXlsx } from './writers';
+
+export interface ExportOptions {
+  /** Path of the open project file, which the export must never replace. */
+  readonly projectPath?: string | null;
+}
+
+export interface ExportOutcome {
+  readonly path: string;
+  /** Student rows in the final-marks table. */
+  readonly rows: number;
+}
+
+/** The CSV sibling files for the optional tables. */
+export function csvSiblingPath(path: string, suffix: 'breakdown' | 'sections' | 'assessments'): string {
+  const ext = extname(path);
+  const stem = ext === '' ? path : path.slice(0, -ext.length);
+  return `${stem}.${suffix}${ext === '' ? '.csv' : ext}`;
+}
+
+/** The first bytes of an existing file, or null when it does not exist. */
+async function head(path: string): Promise<Buffer | null> {
+  try {
+    const handle = await open(path, 'r');
+    try {
+      const buffer = Buffer.alloc(4096);
+      const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
+      return buffer.subarray(0, bytesRead);
+    } finally {
+      await handle.close();
+    }
+  } catch (error) {
+    if (typeof error === 'object' && error !== null && (error as { code?: unknown }).code === 'ENOENT') return null;
+    throw error;
+  }
+}
+
+const PROJECT_MARKER = /"format"\s*:\s*"weighbridge-(project|plan|recovery)"/;
+
+export async function exportFinals(request: ExportRequest, options: ExportOptions = {}): Promise<Result<ExportOutcome>> {
+  const valid = exportRequestSchema.safeParse(request);
+  if (!valid.success) return fail('bad-input', `The export was not written: ${describeIssues(valid.error, ['request'])}.`);
+  const { path, format, project, include } = request;
+  const ext = extname(path).toLowerCase();
+  if (ext !== `.${format}`) {
+    return fail('bad-input', `The file name "${basename(path)}" does not end in .${format}; choose a name ending in .${format} for this export.`);
+  }
+
+  const graded = gradeProject(project);
+  const finals = finalsTable(project.gradebook, graded, request.columns);
+  const extras: { suffix: 'breakdown' | 'sections' | 'assessments'; table: Table }[] = [];
+  if (include.breakdown) extras.push({ suffix: 'breakdown', table: breakdownTable(project, graded) });
+  if (include.sectionStatistics) extras.push({ suffix: 'sections', table: sectionStatisticsTable(project.gradebook, graded) });
+  if (include.assessmentStatistics) extras.push({ suffix: 'assessments', table: assessmentStatisticsTable(project.gradebook) });
+
+  const files: { path: string; data: string | Buffer }[] =
+    format === 'xlsx'
+      ? [{ path, data: tablesToXlsx([finals, ...extras.map((e) => e.table)]) }]
+      : [{ path, data: tableToCsv(finals) }, ...extras.map((e) => ({ path: csvSiblingPath(path, e.suffix), data: tableToCsv(e.table) }))];
+
+  try {
+    // Check every target before writing any, so a refusal leaves nothing half-exported.
+    for (const file of files) {
+      const name = basename(file.path);
+      if (project.source && (await sameFile(file.path, project.source.path))) {
+        return fail('bad-input', `"${name}" is the course's source spreadsheet; Weighbridge never writes it. Choose another file name for the export.`);
+      }
+      if (options.projectPath && (await sameFile(file.path, options.projectPath))) {
+        return fail('bad-input', `"${name}" is the open project file; an export would replace the course. Choose another file name for the export.`);
+      }
+      const existing = await head(file.path);
+      if (existing !== null) {
+        if (PROJECT_MARKER.test(existing.toString('utf8'))) {
+          return fail('bad-input', `"${name}" is a Weighbridge project or plan file; an export would replace it. Choose another file name for the export.`);
+        }
+        if (!request.overwrite) {
+          return fail('exists', `"${name}" already exists. Confirm that it may be replaced, or choose another file name.`);
+        }
+      }
+    }
+    for (const file of files) await writeAtomic(file.path, file.data);
+  } catch (error) {
+    return ioFailure('Exporting the final marks', path, error);
+  }
+  return ok({ path, rows: finals.rows.length });
+}

@@ -1,0 +1,17 @@
+/** Final-marks export with formula-injection defence. */
+export { exportFinals, csvSiblingPath, type ExportOptions, type ExportOutcome } from './exportFinals';
+export { neutraliseCell, needsNeutralising, stripNeutraliser } from './neutralise';
+export {
+  assessmentStatisticsTable,
+  breakdownTable,
+  finalsTable,
+  gradeProject,
+  sectionStatisticsTable,
+  sectionSummaries,
+  undefinedReasons,
+  type CellValue,
+  type GradedCourse,
+  type GroupSummary,
+  type Table,
+} from './tables';
+export { tableToCsv, tablesToXlsx } from './writers';

@@ -1,0 +1,58 @@
+/**
+ * Tables → bytes. CSV: UTF-8 with a byte-order mark (spreadsheet programs otherwise guess a legacy
+ * code page and garble accented names), comma-delimited, CRLF line ends and quoting as RFC 4180,
+ * numbers with a decimal point. xlsx: numbers as numeric cells (`t: 'n'`), text as string cells.
+ * In both, text is neutralised against formula injection (neutralise.ts) and numbers never are.
+ */
+import Papa from 'papaparse';
+import * as XLSX from 'xlsx';
+import { neutraliseCell, needsNeutralising } from './neutralise';
+import type { CellValue, Table } from './tables';
+
+const BOM = '\uFEFF';
+
+function csvCell(v: CellValue): string | number {
+  if (v === null) return '';
+  return typeof v === 'number' ? v : neutraliseCell(v);
+}
+
+export function tableToCsv(table: Table): string {
+  const data = [table.header.map(csvCell), ...table.rows.map((r) => r.map(csvCell))];
+  const body = Papa.unparse(data, {
+    delimiter: ',',
+    newline: '\r\n',
+    // OWASP: a neutralised field is also quoted. Papa quotes commas, quotes and line breaks itself.
+    quotes: (value: unknown) => typeof value === 'string' && value.startsWith("'") && needsNeutralising(value.slice(1)),
+    escapeFormulae: false,
+  });
+  return `${BOM}${body}\r\n`;
+}
+
+function xlsxCell(v: CellValue): XLSX.CellObject | null {
+  if (v === null) return null;
+  if (typeof v === 'number') return { t: 'n', v };
+  return { t: 's', v: neutraliseCell(v) };
+}
+
+/** SheetJS sheet names: at most 31 characters, none of : \ / ? * [ ]. */
+function sheetName(name: string): string {
+  return name.replace(/[:\\/?*[\]]/g, ' ').slice(0, 31);
+}
+
+export function tablesToXlsx(tables: readonly Table[]): Buffer {
+  const book = XLSX.utils.book_new();
+  for (const table of tables) {
+    const grid = [table.header.map(xlsxCell), ...table.rows.map((r) => r.map(xlsxCell))];
+    const sheet: XLSX.WorkSheet = {};
+    let width = 0;
+    grid.forEach((row, r) => {
+      row.forEach((cell, c) => {
+        if (cell !== null) sheet[XLSX.utils.encode_cell({ r, c })] = cell;
+      });
+      width = Math.max(width, row.length);
+    });
+    sheet['!ref'] = XLSX.utils.encode_range({ s: { r: 0, c: 0 }, e: { r: Math.max(grid.length - 1, 0), c: Math.max(width - 1, 0) } });
+    XLSX.utils.book_append_sheet(book, sheet, sheetName(table.name));
+  }
+  return XLSX.write(book, { type: 'buffer', bookType: 'xlsx', compression: true }) as Buffer;
+}

@@ -1,0 +1,124 @@
+/**
+ * The open course and its history, for every workspace. All changes go through `apply` (or
+ * `open`), never through local copies, so undo/redo, the dirty flag and autosave see each one.
+ */
+import { createContext, useCallback, useContext, useEffect, useMemo, useReducer, useState, type ReactNode } from 'react';
+import type { CourseProject } from '../bridge/contract';
+import { useBridge } from '../bridge/BridgeContext';
+import { gradeCourse, type CourseResult } from '../engine/grading/gradeCourse';
+import {
+  DEFAULT_HISTORY_LIMIT,
+  historyReducer,
+  initialHistory,
+  isDirty,
+  redoLabel,
+  undoLabel,
+  type Edit,
+} from './history';
+
+export type { Edit } from './history';
+
+export type { CourseResult } from '../engine/grading/gradeCourse';
+
+export interface CourseStore {
+  readonly project: CourseProject | null;
+  readonly projectPath: string | null;
+  /** gradeCourse(project.gradebook, project.plan), recomputed only when either changes. */
+  readonly results: CourseResult | null;
+  readonly dirty: boolean;
+  apply(edit: Edit): void;
+  undo(): void;
+  redo(): void;
+  readonly canUndo: boolean;
+  readonly canRedo: boolean;
+  readonly undoLabel: string | null;
+  readonly redoLabel: string | null;
+  /** Start a fresh history on `project`. `options.dirty`: it is not what is on disk (restored recovery copy). */
+  open(project: CourseProject, path: string | null, options?: { dirty?: boolean }): void;
+  markSaved(path: string): void;
+  /** When the last autosave to the recovery copy finished, or null. */
+  readonly lastAutosave: string | null;
+}
+
+const CourseStoreContext = createContext<CourseStore | null>(null);
+
+/** Quiet period after the last change before the recovery copy is written. */
+export const AUTOSAVE_DELAY_MS = 2000;
+
+export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_LIMIT }: { children: ReactNode; historyLimit?: number }) {
+  const bridge = useBridge();
+  const [state, dispatch] = useReducer(historyReducer, historyLimit, initialHistory);
+  const [lastAutosave, setLastAutosave] = useState<string | null>(null);
+
+  const project = state.present?.project ?? null;
+  const dirty = isDirty(state);
+  const projectPath = state.projectPath;
+
+  const gradebook = project?.gradebook;
+  const plan = project?.plan;
+  const results = useMemo<CourseResult | null>(() => {
+    if (gradebook === undefined || plan === undefined) return null;
+    return gradeCourse(gradebook, plan);
+  }, [gradebook, plan]); // the two parts the engine reads: a title edit does not regrade
+
+  // Autosave: a debounced recovery copy after every change that is not on disk.
+  useEffect(() => {
+    if (project === null || !dirty) return;
+    const timer = setTimeout(() => {
+      void bridge.writeRecovery(projectPath, project).then((r) => {
+        if (r.ok) setLastAutosave(r.value.savedAt);
+      });
+    }, AUTOSAVE_DELAY_MS);
+    return () => clearTimeout(timer);
+  }, [bridge, project, projectPath, dirty]);
+
+  // Tell the shell (when there is one) so closing the window can ask about unsaved changes.
+  useEffect(() => {
+    void bridge.setDirty?.(dirty);
+  }, [bridge, dirty]);
+
+  const apply = useCallback((edit: Edit) => dispatch({ type: 'apply', edit }), []);
+  const undo = useCallback(() => dispatch({ type: 'undo' }), []);
+  const redo = useCallback(() => dispatch({ type: 'redo' }), []);
+  const open = useCallback(
+    (p: CourseProject, path: string | null, options?: { dirty?: boolean }) =>
+      dispatch({ type: 'open', project: p, path, dirty: options?.dirty === true }),
+    [],
+  );
+  const markSaved = useCallback(
+    (path: string) => {
+      dispatch({ type: 'markSaved', path });
+      // The project file now holds the work; an old recovery copy would only confuse the next start.
+      void bridge.discardRecovery();
+    },
+    [bridge],
+  );
+
+  const value = useMemo<CourseStore>(
+    () => ({
+      project,
+      projectPath,
+      results,
+      dirty,
+      apply,
+      undo,
+      redo,
+      canUndo: state.past.length > 0,
+      canRedo: state.future.length > 0,
+      undoLabel: undoLabel(state),
+      redoLabel: redoLabel(state),
+      open,
+      markSaved,
+      lastAutosave,
+    }),
+    [state, project, projectPath, results, dirty, apply, undo, redo, open, markSaved, lastAutosave],
+  );
+
+  return <CourseStoreContext.Provider value={value}>{children}</CourseStoreContext.Provider>;
+}
+
+export function useCourseStore(): CourseStore {
+  const store = useContext(CourseStoreContext);
+  if (store === null) throw new Error('useCourseStore() needs a <CourseStoreProvider> above it');
+  return store;
+}
