@@ -1,0 +1,337 @@
+/**
+ * Bytes → a plain grid per sheet, with the real file type decided from the bytes, not the name.
+ *
+ * Magic numbers: ZIP local-file header "PK\x03\x04" (APPNOTE.TXT §4.3.7) for .xlsx (ECMA-376 Part 2,
+ * Open Packaging Conventions) and .ods (OpenDocument 1.2 Part 3 §3.3: an uncompressed first entry
+ * "mimetype" holding "application/vnd.oasis.opendocument.spreadsheet"); Compound File Binary
+ * D0 CF 11 E0 A1 B1 1A E1 ([MS-CFB] §2.2) for .xls ("Workbook"/"Book" stream, [MS-XLS] §2.1.2) and
+ * for password-protected OOXML ("EncryptionInfo" + "EncryptedPackage" streams, [MS-OFFCRYPTO] §2.3.4).
+ *
+ * Nothing SheetJS returns is trusted as an object: sheets are looked up by own property only, and
+ * every cell becomes a string, a finite number or null in arrays this module builds itself.
+ */
+import Papa from 'papaparse';
+import * as XLSX from 'xlsx';
+import type { ImportProblem, TextEncoding, WorkbookPreview } from '../../../renderer/bridge/contract';
+import { fileProblem, problemAt } from './problems';
+import { decodeText, detectEncoding } from './textEncoding';
+
+/** One cell as read: text, a number (only from a numeric workbook cell), or blank. */
+export type Cell = string | number | null;
+
+export interface RawSheet {
+  readonly name: string;
+  /** Rows without trailing blank rows; each row without trailing blank cells. */
+  readonly rows: readonly (readonly Cell[])[];
+  readonly width: number;
+}
+
+export interface RawBook {
+  readonly format: WorkbookPreview['format'];
+  readonly encoding?: TextEncoding;
+  readonly delimiter?: string;
+  readonly sheets: readonly RawSheet[];
+  /** Non-fatal reading problems (a sheet that cannot be read safely, replaced characters …). */
+  readonly problems: readonly ImportProblem[];
+}
+
+export interface ReadOverride {
+  readonly encoding?: TextEncoding;
+  readonly delimiter?: string;
+}
+
+export type ReadResult = { readonly ok: true; readonly book: RawBook } | { readonly ok: false; readonly problem: ImportProblem };
+
+const FIX_SAVE_AGAIN = 'Open it in your spreadsheet program and save it again as .xlsx, .ods or .csv, or export a fresh copy.';
+const SUPPORTED = '.xlsx, .xls, .ods, .csv or .tsv';
+const TEXT_EXTENSIONS = new Set(['csv', 'tsv', 'txt', 'tab']);
+const WORKBOOK_EXTENSIONS = new Set(['xlsx', 'xlsm', 'xls', 'ods']);
+
+export function readBook(bytes: Uint8Array, fileName: string, override: ReadOverride = {}): ReadResult {
+  const ext = extensionOf(fileName);
+  if (bytes.length === 0 || isBlankText(bytes)) {
+    return fail('empty-file', `The file "${fileName}" is empty. Choose the gradebook file that holds the scores.`);
+  }
+  if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04])) return readZip(bytes, fileName);
+  if (startsWith(bytes, [0x50, 0x4b, 0x05, 0x06])) {
+    return fail('empty-file', `The file "${fileName}" is an empty archive with nothing in it. Choose the gradebook file that holds the scores.`);
+  }
+  if (startsWith(bytes, [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])) return readCompound(bytes, fileName);
+  if (WORKBOOK_EXTENSIONS.has(ext)) {
+    return fail(
+      'wrong-file-type',
+      `The file "${fileName}" is named .${ext} but its contents are not a spreadsheet workbook (it may be damaged or renamed). Choose a ${SUPPORTED} file.`,
+    );
+  }
+  if (!TEXT_EXTENSIONS.has(ext)) {
+    return fail('wrong-file-type', `The file "${fileName}" is not a spreadsheet Weighbridge can import. Choose a ${SUPPORTED} file.`);
+  }
+  return readText(bytes, fileName, ext, override);
+}
+
+function readZip(bytes: Uint8Array, fileName: string): ReadResult {
+  const buf = asBuffer(bytes);
+  // The end-of-central-directory record (PK 05 06) sits in the last 22 + 65 535 bytes (APPNOTE.TXT
+  // §4.3.16); without it the archive was cut short.
+  if (buf.lastIndexOf(Buffer.from([0x50, 0x4b, 0x05, 0x06])) < Math.max(0, buf.length - 65557)) {
+    return corrupt(fileName, new Error('the ZIP archive has no central directory'));
+  }
+  let format: 'xlsx' | 'ods';
+  if (buf.indexOf('mimetypeapplication/vnd.oasis.opendocument.spreadsheet', 0, 'latin1') >= 0) format = 'ods';
+  else if (buf.indexOf('xl/workbook.xml', 0, 'latin1') >= 0) format = 'xlsx';
+  else if (buf.indexOf('xl/workbook.bin', 0, 'latin1') >= 0) {
+    return fail('wrong-file-type', `The file "${fileName}" is a binary Excel workbook (.xlsb), which Weighbridge does not read. Save it as .xlsx and import that copy.`);
+  } else {
+    return fail('wrong-file-type', `The file "${fileName}" is a ZIP archive but not a spreadsheet workbook (for example a word-processor document). Choose a ${SUPPORTED} file.`);
+  }
+  return readWorkbook(buf, fileName, format);
+}
+
+function readCompound(bytes: Uint8Array, fileName: string): ReadResult {
+  const buf = asBuffer(bytes);
+  let names: string[];
+  try {
+    names = compoundStreamNames(buf);
+  } catch (e) {
+    return corrupt(fileName, e);
+  }
+  if (names.includes('EncryptionInfo') || names.includes('EncryptedPackage')) return passwordProtected(fileName);
+  if (!names.includes('Workbook') && !names.includes('Book')) {
+    return fail('wrong-file-type', `The file "${fileName}" is an Office file but not a spreadsheet workbook (for example a word-processor document). Choose a ${SUPPORTED} file.`);
+  }
+  return readWorkbook(buf, fileName, 'xls');
+}
+
+/** Stream names of a compound file, read through SheetJS's bundled CFB reader (typed `any` upstream). */
+function compoundStreamNames(buf: Buffer): string[] {
+  const cfb: unknown = (XLSX.CFB as { read: (d: Buffer, o: { type: 'buffer' }) => unknown }).read(buf, { type: 'buffer' });
+  const index = (cfb as { FileIndex?: unknown }).FileIndex;
+  if (!Array.isArray(index)) throw new Error('no directory');
+  const names: string[] = [];
+  for (const entry of index as unknown[]) {
+    const name = (entry as { name?: unknown } | null)?.name;
+    if (typeof name === 'string') names.push(name);
+  }
+  return names;
+}
+
+function readWorkbook(buf: Buffer, fileName: string, format: 'xlsx' | 'xls' | 'ods'): ReadResult {
+  let wb: XLSX.WorkBook;
+  try {
+    // raw: no text cell is reinterpreted ("7,5" stays text for parseScore); numeric cells stay
+    // numbers. cellNF keeps the number format so a percent-formatted 0.85 can be read as "85%".
+    wb = XLSX.read(buf, {
+      type: 'buffer',
+      dense: true,
+      raw: true,
+      cellDates: false,
+      cellFormula: false,
+      cellHTML: false,
+      cellStyles: false,
+      cellNF: true,
+      cellText: true,
+      bookVBA: false,
+      WTF: false,
+    });
+  } catch (e) {
+    if (/password|encrypt/i.test(errorText(e))) return passwordProtected(fileName);
+    return corrupt(fileName, e);
+  }
+  const names: unknown = wb.SheetNames;
+  if (!Array.isArray(names) || names.length === 0) return corrupt(fileName, new Error('no sheets'));
+  const sheets: RawSheet[] = [];
+  const problems: ImportProblem[] = [];
+  const seen = new Set<string>();
+  for (const name of names as unknown[]) {
+    if (typeof name !== 'string') continue;
+    const sheetsObj: unknown = wb.Sheets;
+    const own = typeof sheetsObj === 'object' && sheetsObj !== null && Object.prototype.hasOwnProperty.call(sheetsObj, name);
+    if (!own || seen.has(name)) {
+      problems.push(
+        problemAt('warning', 'sheet-unreadable', { sheet: name }, `this sheet could not be read safely (its name "${name}" clashes with a reserved word) and was left out. Rename the sheet and import again if it holds scores.`),
+      );
+      continue;
+    }
+    seen.add(name);
+    const ws: unknown = Object.getOwnPropertyDescriptor(sheetsObj, name)?.value;
+    sheets.push(sheetFromWorksheet(name, ws));
+  }
+  return { ok: true, book: { format, sheets, problems } };
+}
+
+function sheetFromWorksheet(name: string, ws: unknown): RawSheet {
+  const data: unknown = typeof ws === 'object' && ws !== null ? Object.getOwnPropertyDescriptor(ws, '!data')?.value : undefined;
+  const rows: Cell[][] = [];
+  if (Array.isArray(data)) {
+    for (let r = 0; r < data.length; r++) {
+      const src: unknown = data[r];
+      const row: Cell[] = [];
+      if (Array.isArray(src)) {
+        for (let c = 0; c < src.length; c++) row.push(cellFromSheetJs(src[c]));
+      }
+      rows.push(row);
+    }
+  }
+  return finishSheet(name, rows);
+}
+
+/** A SheetJS cell object → Cell. Unknown shapes become blank rather than being trusted. */
+function cellFromSheetJs(raw: unknown): Cell {
+  if (typeof raw !== 'object' || raw === null) return null;
+  const t = ownValue(raw, 't');
+  const v = ownValue(raw, 'v');
+  const w = ownValue(raw, 'w');
+  const text = typeof w === 'string' ? w : null;
+  switch (t) {
+    case 'n': {
+      if (typeof v !== 'number' || !Number.isFinite(v)) return text;
+      const z = ownValue(raw, 'z');
+      // A percent-formatted 0.85 is shown as 85% in the sheet: hand it on as the text the user sees.
+      if (typeof z === 'string' && z.replace(/"[^"]*"/g, '').includes('%')) return `${Number((v * 100).toPrecision(12))}%`;
+      return v;
+    }
+    case 's':
+    case 'str':
+      return typeof v === 'string' ? (v === '' ? null : v) : text;
+    case 'b':
+      return v === true ? 'TRUE' : v === false ? 'FALSE' : text;
+    case 'e':
+      return text ?? '#ERROR';
+    case 'd':
+      return text ?? (v instanceof Date ? v.toISOString() : null);
+    default:
+      return null;
+  }
+}
+
+function readText(bytes: Uint8Array, fileName: string, ext: string, override: ReadOverride): ReadResult {
+  const encoding = override.encoding ?? detectEncoding(bytes);
+  let text: string;
+  try {
+    text = decodeText(bytes, encoding);
+  } catch (e) {
+    return fail('bad-encoding', `The file "${fileName}" cannot be read as ${encoding} (${errorText(e)}). Choose another encoding.`);
+  }
+  if (looksBinary(text)) {
+    return fail('wrong-file-type', `The file "${fileName}" does not hold text, so it is not a .${ext} table (it may be damaged or renamed). Choose a ${SUPPORTED} file.`);
+  }
+  const sheetName = baseName(fileName);
+  const problems: ImportProblem[] = [];
+  if (text.includes('\uFFFD')) {
+    problems.push(problemAt('warning', 'replaced-characters', { sheet: sheetName }, `some characters could not be decoded as ${encoding} and show as "\uFFFD". Choose another encoding in the preview.`));
+  }
+  const wanted = override.delimiter;
+  if (wanted !== undefined && (wanted.length !== 1 || wanted === '"' || wanted === '\r' || wanted === '\n')) {
+    return fail('bad-delimiter', `The delimiter ${JSON.stringify(wanted)} cannot be used: choose one character such as "," ";" or a tab.`);
+  }
+  const parsed = Papa.parse<string[]>(text, {
+    delimiter: wanted ?? (ext === 'tsv' || ext === 'tab' ? '\t' : ''),
+    delimitersToGuess: [',', ';', '\t'],
+    header: false,
+    dynamicTyping: false,
+    skipEmptyLines: false,
+  });
+  for (const err of parsed.errors) {
+    if (err.type === 'Delimiter') continue; // one column: nothing to guess, ',' is as good as any
+    const row = typeof err.row === 'number' ? err.row + 1 : undefined;
+    return fail(
+      'malformed-text',
+      `Sheet "${sheetName}"${row === undefined ? '' : `, row ${row}`}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`,
+    );
+  }
+  const rows: Cell[][] = [];
+  for (const src of parsed.data as unknown[]) {
+    const row: Cell[] = [];
+    if (Array.isArray(src)) for (const v of src as unknown[]) row.push(typeof v === 'string' && v !== '' ? v : null);
+    rows.push(row);
+  }
+  const delimiter = parsed.meta.delimiter;
+  const format = ext === 'tsv' || ext === 'tab' || (delimiter === '\t' && ext !== 'csv') ? 'tsv' : 'csv';
+  return { ok: true, book: { format, encoding, delimiter, sheets: [finishSheet(sheetName, rows)], problems } };
+}
+
+function finishSheet(name: string, rows: Cell[][]): RawSheet {
+  for (const row of rows) while (row.length > 0 && isBlank(row[row.length - 1])) row.pop();
+  while (rows.length > 0 && (rows[rows.length - 1]?.length ?? 0) === 0) rows.pop();
+  let width = 0;
+  for (const row of rows) width = Math.max(width, row.length);
+  return { name, rows, width };
+}
+
+export function isBlank(cell: Cell | undefined): boolean {
+  return cell === null || cell === undefined || (typeof cell === 'string' && cell.trim() === '');
+}
+
+/** What the cell shows, for previews and messages. */
+export function cellText(cell: Cell | undefined): string {
+  if (cell === null || cell === undefined) return '';
+  return typeof cell === 'number' ? String(cell) : cell;
+}
+
+function passwordProtected(fileName: string): ReadResult {
+  return fail(
+    'password-protected',
+    `The file "${fileName}" is password-protected. Open it in your spreadsheet program, remove the password (save a copy without encryption) and import that copy.`,
+  );
+}
+
+function corrupt(fileName: string, e: unknown): ReadResult {
+  return fail('corrupt-file', `The file "${fileName}" could not be read: it looks damaged or incomplete (${errorText(e)}). ${FIX_SAVE_AGAIN}`);
+}
+
+function fail(code: string, message: string): ReadResult {
+  return { ok: false, problem: fileProblem('error', code, message) };
+}
+
+function errorText(e: unknown): string {
+  const text = e instanceof Error ? e.message : typeof e === 'string' ? e : 'unknown error';
+  return text.length > 120 ? `${text.slice(0, 120)}…` : text;
+}
+
+function ownValue(obj: object, key: string): unknown {
+  return Object.getOwnPropertyDescriptor(obj, key)?.value;
+}
+
+function asBuffer(bytes: Uint8Array): Buffer {
+  return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+}
+
+function startsWith(bytes: Uint8Array, magic: readonly number[]): boolean {
+  return magic.every((b, i) => bytes[i] === b);
+}
+
+/** Only whitespace, optionally after a UTF-8 or UTF-16 BOM (NULs of UTF-16 included). */
+function isBlankText(bytes: Uint8Array): boolean {
+  for (let i = 0; i < bytes.length; i++) {
+    const b = bytes[i];
+    if (b === 0x20 || b === 0x09 || b === 0x0a || b === 0x0d || b === 0x00) continue;
+    if (i < 3 && (b === 0xef || b === 0xbb || b === 0xbf || b === 0xff || b === 0xfe)) continue;
+    return false;
+  }
+  return true;
+}
+
+/** NULs or many control characters: not a text table whatever the extension says. */
+function looksBinary(text: string): boolean {
+  const sample = text.slice(0, 8192);
+  let control = 0;
+  for (let i = 0; i < sample.length; i++) {
+    const code = sample.charCodeAt(i);
+    if (code === 0) return true;
+    if (code < 0x20 && code !== 0x09 && code !== 0x0a && code !== 0x0d && code !== 0x0c) control++;
+  }
+  return control > Math.max(2, sample.length * 0.05);
+}
+
+function extensionOf(fileName: string): string {
+  const base = fileName.split(/[\\/]/).pop() ?? fileName;
+  const dot = base.lastIndexOf('.');
+  return dot > 0 ? base.slice(dot + 1).toLowerCase() : '';
+}
+
+/** "scores.csv" → "scores": the name a text file's only sheet goes by in messages. */
+export function baseName(fileName: string): string {
+  const base = fileName.split(/[\\/]/).pop() ?? fileName;
+  const dot = base.lastIndexOf('.');
+  return dot > 0 ? base.slice(0, dot) : base;
+}
