@@ -1,0 +1,40 @@
+/**
+ * How a roster cell looks and reads: the visible text, a symbol that carries the state without
+ * colour, and the words a screen reader announces. One function so the grid, its legend and the
+ * tests agree.
+ */
+import type { Score } from '../../engine/model';
+import type { ItemStatus } from '../../engine/results';
+
+export type CellState = 'earned' | 'above' | 'missing' | 'excused' | 'pending';
+
+export interface CellView {
+  readonly state: CellState;
+  /** Text shown in the cell. */
+  readonly text: string;
+  /** Struck through and marked: the student's drop-lowest rule left this item out. */
+  readonly dropped: boolean;
+  /** Full spoken description, e.g. "18 of 20, dropped by drop lowest". */
+  readonly label: string;
+}
+
+const pointsFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 2, useGrouping: false });
+
+export function formatPoints(points: number): string {
+  return pointsFormat.format(points);
+}
+
+export function cellView(score: Score | undefined, possible: number, status: ItemStatus | undefined): CellView {
+  const dropped = status === 'dropped';
+  const droppedWords = dropped ? ', dropped by drop lowest' : '';
+  if (score === undefined || score.kind === 'missing') {
+    return { state: 'missing', text: '—', dropped, label: `missing${droppedWords}` };
+  }
+  if (score.kind === 'excused') return { state: 'excused', text: 'EX', dropped, label: 'EX, excused' };
+  if (score.kind === 'pending') return { state: 'pending', text: '…', dropped, label: 'pending' };
+  const shown = formatPoints(score.points);
+  if (score.points > possible) {
+    return { state: 'above', text: `▲ ${shown}`, dropped, label: `${shown} of ${formatPoints(possible)}, above points possible${droppedWords}` };
+  }
+  return { state: 'earned', text: shown, dropped, label: `${shown} of ${formatPoints(possible)}${droppedWords}` };
+}
