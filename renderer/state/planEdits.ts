@@ -6,6 +6,7 @@
  * Functions never mutate their input, and they throw a RangeError (naming the field and the fix) on a
  * value the plan cannot hold; the UI validates typed input first, so a throw means a UI bug.
  */
+import { itemRuleFor } from '../engine/grading/itemRule';
 import type {
   Adjustment,
   Category,
@@ -83,10 +84,10 @@ export function renameCategory(plan: GradingPlan, categoryId: string, name: stri
  */
 export function removeCategory(plan: GradingPlan, categoryId: string): GradingPlan {
   requireCategory(plan, categoryId);
-  const items: Record<string, GradingPlan['items'][string]> = {};
-  for (const [assessmentId, rule] of Object.entries(plan.items)) {
-    items[assessmentId] = rule.categoryId === categoryId ? { ...rule, categoryId: null } : rule;
-  }
+  // fromEntries defines own keys, so an assessment id such as "__proto__" stays an ordinary key.
+  const items = Object.fromEntries(
+    Object.entries(plan.items).map(([assessmentId, rule]) => [assessmentId, rule.categoryId === categoryId ? { ...rule, categoryId: null } : rule]),
+  );
   return {
     ...plan,
     categories: plan.categories.filter((c) => c.id !== categoryId),
@@ -126,12 +127,12 @@ export function moveCategory(plan: GradingPlan, categoryId: string, direction: -
 /** Put an assessment in a category, or take it out of grading (`null`). */
 export function assignAssessment(plan: GradingPlan, assessmentId: string, categoryId: string | null): GradingPlan {
   if (categoryId !== null) requireCategory(plan, categoryId);
-  const previous = plan.items[assessmentId];
+  const previous = itemRuleFor(plan, assessmentId);
   return { ...plan, items: { ...plan.items, [assessmentId]: { categoryId, extraCredit: previous?.extraCredit ?? false } } };
 }
 
 export function setExtraCredit(plan: GradingPlan, assessmentId: string, extraCredit: boolean): GradingPlan {
-  const previous = plan.items[assessmentId];
+  const previous = itemRuleFor(plan, assessmentId);
   return { ...plan, items: { ...plan.items, [assessmentId]: { categoryId: previous?.categoryId ?? null, extraCredit } } };
 }
 

@@ -4,6 +4,7 @@
  * still computed and these are shown beside them.
  */
 import type { Gradebook, GradingPlan } from '../model';
+import { itemRuleFor } from './itemRule';
 import { validateScale } from './gradeScale';
 
 /** Weights summing to within this of 100 are "100" (2-decimal weights such as 33.33+33.33+33.34). */
@@ -35,7 +36,7 @@ export function checkPlan(book: Gradebook, plan: GradingPlan): string[] {
   const assessmentIds = new Set(book.assessments.map((a) => a.id));
   const used = new Map<string, number>();
   for (const a of book.assessments) {
-    const rule = plan.items[a.id];
+    const rule = itemRuleFor(plan, a.id);
     if (rule === undefined || rule.categoryId === null) {
       problems.push(`Assessment "${a.name}" is in no category, so it is not graded; assign it a category if it should count.`);
     } else if (!categoryIds.has(rule.categoryId)) {

@@ -18,6 +18,7 @@ import { applyAdjustments } from './adjustments';
 import { categoryScore, type CategoryItem } from './categoryScore';
 import { checkPlan, usableDecimals } from './checkPlan';
 import { letterFor } from './gradeScale';
+import { itemRuleFor } from './itemRule';
 import { renormalise, waiverStatus, weightedPercent, type WeightInput } from './renormalise';
 import { roundHalfUp } from './rounding';
 
@@ -38,7 +39,7 @@ export function layoutFor(book: Gradebook, plan: GradingPlan): readonly Category
   return plan.categories.map((category) => ({
     category,
     items: book.assessments.flatMap((a, index) => {
-      const rule = plan.items[a.id];
+      const rule = itemRuleFor(plan, a.id);
       if (rule === undefined || rule.categoryId !== category.id) return [];
       if (!(Number.isFinite(a.possible) && a.possible > 0)) return [];
       return [{ index, id: a.id, possible: a.possible, extraCredit: rule.extraCredit }];

@@ -19,3 +19,4 @@ export type { LineNames } from './explain';
 export { neededOnPending, boundaryList } from './whatIf';
 export type { NeededForCutoff, BoundaryEntry } from './whatIf';
 export { suggestPlan, baseName, categoryNameFor, equalWeights } from './suggestPlan';
+export { itemRuleFor } from './itemRule';

@@ -50,10 +50,10 @@ export function suggestPlan(book: Gradebook): GradingPlan {
   }
   const weights = equalWeights(order.length);
   const ids = new Set<string>();
-  const items: Record<string, ItemRule> = {};
+  const itemEntries: [string, ItemRule][] = [];
   const categories: Category[] = order.map((name, i) => {
     const id = uniqueId(slug(name), ids);
-    for (const assessmentId of byName.get(name.toLowerCase()) ?? []) items[assessmentId] = { categoryId: id, extraCredit: false };
+    for (const assessmentId of byName.get(name.toLowerCase()) ?? []) itemEntries.push([assessmentId, { categoryId: id, extraCredit: false }]);
     return {
       id,
       name,
@@ -67,7 +67,7 @@ export function suggestPlan(book: Gradebook): GradingPlan {
   });
   return {
     categories,
-    items,
+    items: Object.fromEntries(itemEntries),
     sectionWaivers: [],
     studentWaivers: [],
     markMode: 'current',

@@ -1,4 +1,5 @@
 /** Assessments: which category each one feeds, and whether it is extra credit. */
+import { itemRuleFor } from '../../engine/grading/itemRule';
 import type { Gradebook, GradingPlan } from '../../engine/model';
 import * as edits from '../../state/planEdits';
 import { formatPoints } from '../roster/cellView';
@@ -23,7 +24,7 @@ export function AssessmentsPanel({ plan, gradebook, update }: { plan: GradingPla
           </thead>
           <tbody>
             {gradebook.assessments.map((a) => {
-              const rule = plan.items[a.id];
+              const rule = itemRuleFor(plan, a.id);
               const categoryId = rule?.categoryId ?? null;
               const known = categoryId !== null && plan.categories.some((c) => c.id === categoryId);
               return (
