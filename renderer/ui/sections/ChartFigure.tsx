@@ -1,0 +1,71 @@
+/**
+ * One chart: a keyboard-reachable <figure> holding the Plot SVG, a readout that arrow keys step
+ * through (the values a pointer user sees on hover), and the numbers behind the chart as a table
+ * behind a visible toggle — the chart's text alternative.
+ */
+import { useEffect, useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+
+export function ChartFigure({ chart, title, build, readouts, table, children }: {
+  /** data-chart value, for tests and styling. */
+  chart: string;
+  title: string;
+  /** Builds the chart on the given document; null when there is nothing to draw. */
+  build: (doc: Document) => Element | null;
+  /** One sentence per value a keyboard user can step through with the arrow keys. */
+  readouts: readonly string[];
+  /** The numbers behind the chart. */
+  table: ReactNode;
+  /** Controls shown under the title (rule selector, slider …). */
+  children?: ReactNode;
+}) {
+  const host = useRef<HTMLDivElement>(null);
+  const [active, setActive] = useState<number | null>(null);
+  const ids = { caption: useId(), readout: useId() };
+
+  useEffect(() => {
+    const el = host.current;
+    if (el === null) return;
+    const node = build(document);
+    el.replaceChildren(...(node === null ? [] : [node]));
+  }, [build]);
+
+  const current = active !== null && active < readouts.length ? active : null;
+
+  const onKey = (e: KeyboardEvent<HTMLElement>) => {
+    if (readouts.length === 0) return;
+    const last = readouts.length - 1;
+    let next: number | null = null;
+    if (e.key === 'ArrowRight' || e.key === 'ArrowDown') next = current === null ? 0 : Math.min(last, current + 1);
+    else if (e.key === 'ArrowLeft' || e.key === 'ArrowUp') next = current === null ? 0 : Math.max(0, current - 1);
+    else if (e.key === 'Home') next = 0;
+    else if (e.key === 'End') next = last;
+    if (next !== null) {
+      e.preventDefault();
+      setActive(next);
+    }
+  };
+
+  return (
+    <section className="wb-chart-block" aria-labelledby={ids.caption}>
+      <h3 id={ids.caption} className="wb-chart-title">{title}</h3>
+      {children}
+      <figure
+        className="wb-chart"
+        data-chart={chart}
+        tabIndex={0}
+        aria-labelledby={ids.caption}
+        aria-describedby={ids.readout}
+        onKeyDown={onKey}
+      >
+        <div ref={host} className="wb-chart-host" />
+        <figcaption id={ids.readout} className="wb-chart-readout" aria-live="polite">
+          {current !== null ? readouts[current] : readouts.length > 0 ? 'Focus the chart and use the arrow keys to read its values.' : 'Nothing to draw.'}
+        </figcaption>
+      </figure>
+      <details className="wb-chart-table">
+        <summary>Numbers behind “{title}”</summary>
+        {table}
+      </details>
+    </section>
+  );
+}
