@@ -98,13 +98,8 @@ function pairSentence(pair: Omit<PairComparison, 'sentence'>): string {
   return parts.join(' ');
 }
 
-/** The caution with section names instead of positions ("section 2" → "section B"). */
 function namedCaution(groups: readonly SectionGroup[]): string {
-  const text = smallGroupCaution(groups.map((g) => g.values.length)) ?? '';
-  return text.replace(/section (\d+)/g, (whole, k: string) => {
-    const g = groups[Number(k) - 1];
-    return g === undefined ? whole : `section ${g.section}`;
-  });
+  return smallGroupCaution(groups.map((g) => g.values.length), groups.map((g) => g.section)) ?? '';
 }
 
 /**

@@ -1,5 +1,6 @@
 /**
- * Plain-words caution for comparing sections.
+ * Plain-words caution for comparing sections. `names` (optional, index-aligned with `ns`) name the
+ * sections in the text; without them sections are numbered from 1.
  *
  * Groups under SMALL_GROUP_N students make tests and effect sizes unstable (threshold: common
  * practice, no source). Sections are never randomly assigned, so a difference between them may
@@ -11,12 +12,13 @@
  */
 export const SMALL_GROUP_N = 20;
 
-export function smallGroupCaution(ns: readonly number[]): string | null {
+export function smallGroupCaution(ns: readonly number[], names?: readonly string[]): string | null {
   if (ns.length === 0) return null;
+  const nameOf = (i: number): string => `section ${names?.[i] ?? String(i + 1)}`;
   const parts: string[] = [];
   const small = ns.map((n, i) => ({ n, i })).filter((g) => g.n < SMALL_GROUP_N);
   if (small.length > 0) {
-    const list = small.map((g) => `section ${g.i + 1} has ${g.n === 1 ? 'only 1 student' : `only ${g.n} students`}`).join('; ');
+    const list = small.map((g) => `${nameOf(g.i)} has ${g.n === 1 ? 'only 1 student' : `only ${g.n} students`}`).join('; ');
     parts.push(
       `Small groups: ${list} (fewer than ${SMALL_GROUP_N}). With so few marks, one or two students can change the result; read p-values and effect sizes as rough indications only.`,
     );

@@ -188,4 +188,11 @@ describe('smallGroupCaution (threshold n < 20: common practice, no source)', () 
     expect(big).toMatch(/not randomly assigned/);
     expect(smallGroupCaution([])).toBeNull();
   });
+
+  it('uses the section names when given', () => {
+    const c = smallGroupCaution([12, 30, 1], ['A01', 'A02', 'A03']);
+    expect(c).toMatch(/section A01 has only 12 students/);
+    expect(c).toMatch(/section A03 has only 1 student\b/);
+    expect(c).not.toMatch(/A02/);
+  });
 });
