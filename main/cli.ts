@@ -22,15 +22,11 @@ import type { CourseProject, ExportColumn, ImportLayout, ImportProblem } from '.
 import type { Defined } from '../renderer/engine/defined';
 import type { Gradebook, GradingPlan } from '../renderer/engine/model';
 import type { StudentResult } from '../renderer/engine/results';
-import { DEFAULT_TOKENS, gradeCourse, suggestPlan } from '../renderer/engine/grading';
+import { gradeCourse, suggestPlan } from '../renderer/engine/grading';
 import { describe, QUANTILE_TYPES, type QuantileType, type Summary } from '../renderer/engine/stats';
 import { exportFinals, sectionSummaries } from './services/export';
 import { loadPlanFile, sameFile, savePlanFile, serialisePlan } from './services/project';
-import { detectAndImport } from './services/spreadsheet';
-import { detectLayout } from './services/spreadsheet/detectLayout';
-import { POSSIBLE_ROW_LABEL, SUMMARY_ROW_LABEL } from './services/spreadsheet/headerWords';
-import { cellText, isBlank, readBook, type Cell, type RawSheet } from './services/spreadsheet/readBook';
-import { columnLetter } from './services/spreadsheet/columnLetter';
+import { detectAndImport, readColumn } from './services/spreadsheet';
 
 export const EXIT_OK = 0;
 export const EXIT_BAD_INPUT = 1;
@@ -252,7 +248,9 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
       columns: EXPORT_COLUMNS,
       include: { breakdown: extras, sectionStatistics: extras, assessmentStatistics: extras },
       overwrite: values.overwrite === true,
-    }, { projectPath: values.plan });
+      // The plan file is the nearest thing to a project file here: never let the export replace it.
+      projectPath: values.plan,
+    });
     if (!written.ok) throw new InputError(written.code === 'exists' ? `${written.message} (use --overwrite)` : written.message);
     io.err(`Wrote ${written.value.rows} final marks to ${written.value.path}. The file holds identifiable student data.`);
   }
@@ -300,90 +298,13 @@ async function projectFor(path: string, gradebook: Gradebook, layout: ImportLayo
 // stats
 // ---------------------------------------------------------------------------------------------
 
-const NUMBER_TEXT = /^[+-]?(\d+(?:[.,]\d+)?|[.,]\d+)$/;
-const TOKENS = new Set([...DEFAULT_TOKENS.excused, ...DEFAULT_TOKENS.missing, ...DEFAULT_TOKENS.pending].map((t) => t.trim().toLowerCase()));
-
-interface ColumnValues {
-  readonly sheet: string;
-  readonly values: number[];
-  readonly rows: number[];
-  readonly labels: string[];
-  readonly groups: (string | null)[];
-  readonly skippedBlank: number;
-  readonly skippedTokens: number;
-}
-
-const norm = (s: string) => s.trim().toLowerCase();
-
-/** The header row of `sheet` holding `column`: the detected one when it does, else the first such row. */
-function headerRowOf(sheet: RawSheet, column: string, detected: number | undefined): number | null {
-  const has = (r: number) => (sheet.rows[r] ?? []).some((c) => norm(cellText(c)) === norm(column));
-  if (detected !== undefined && has(detected)) return detected;
-  for (let r = 0; r < Math.min(sheet.rows.length, 50); r += 1) if (has(r)) return r;
-  return null;
-}
-
-function rowLabel(row: readonly Cell[]): string {
-  const first = row.find((c) => !isBlank(c));
-  return first === undefined ? '' : cellText(first).trim();
-}
-
-async function readColumn(path: string, column: string, by: string | undefined, sheetName: string | undefined): Promise<ColumnValues> {
-  let bytes: Uint8Array;
-  try {
-    bytes = await readFile(path);
-  } catch {
-    throw new InputError(`The file "${path}" cannot be read. Check the path and that you may read it.`);
+async function readStatsColumn(path: string, column: string, by: string | undefined, sheet: string | undefined) {
+  const read = await readColumn(path, { column, ...(by !== undefined ? { by } : {}), ...(sheet !== undefined ? { sheet } : {}) });
+  if (!read.ok) {
+    const lines = read.problems ? problemLines(read.problems.slice(1)) : [];
+    throw new InputError([read.message, ...lines].join('\n'));
   }
-  const read = readBook(bytes, basename(path));
-  if (!read.ok) throw new InputError(read.problem.message);
-  const detection = detectLayout(read.book, DEFAULT_TOKENS);
-  const candidates = sheetName === undefined ? read.book.sheets : read.book.sheets.filter((s) => s.name === sheetName);
-  if (candidates.length === 0) throw new InputError(`There is no sheet "${sheetName}" in ${basename(path)}; sheets: ${read.book.sheets.map((s) => `"${s.name}"`).join(', ')}.`);
-  for (const sheet of candidates) {
-    const guess = detection.layout.sheets.find((s) => s.sheet === sheet.name);
-    const headerRow = headerRowOf(sheet, column, guess?.headerRow);
-    if (headerRow === null) continue;
-    const header = sheet.rows[headerRow] ?? [];
-    const col = header.findIndex((c) => norm(cellText(c)) === norm(column));
-    const byCol = by === undefined ? -1 : header.findIndex((c) => norm(cellText(c)) === norm(by));
-    if (by !== undefined && byCol < 0) throw new InputError(`Sheet "${sheet.name}", row ${headerRow + 1}: there is no column "${by}" for --by. Columns: ${header.map((c) => `"${cellText(c)}"`).filter((h) => h !== '""').join(', ')}.`);
-    const idCol = guess?.headerRow === headerRow ? (guess.columns.find((c) => c.role === 'id')?.index ?? -1) : -1;
-    const out: ColumnValues = { sheet: sheet.name, values: [], rows: [], labels: [], groups: [], skippedBlank: 0, skippedTokens: 0 };
-    let skippedBlank = 0;
-    let skippedTokens = 0;
-    for (let r = headerRow + 1; r < sheet.rows.length; r += 1) {
-      const row = sheet.rows[r] ?? [];
-      if (row.every((c) => isBlank(c))) continue;
-      if (guess?.headerRow === headerRow && guess.possibleRow === r) continue;
-      const label = rowLabel(row);
-      if (POSSIBLE_ROW_LABEL.test(label) || SUMMARY_ROW_LABEL.test(label)) continue;
-      const cell = row[col];
-      let value: number;
-      if (typeof cell === 'number') value = cell;
-      else if (isBlank(cell)) {
-        skippedBlank += 1;
-        continue;
-      } else {
-        const text = cellText(cell).trim();
-        if (TOKENS.has(text.toLowerCase())) {
-          skippedTokens += 1;
-          continue;
-        }
-        if (!NUMBER_TEXT.test(text)) {
-          throw new InputError(`Sheet "${sheet.name}", row ${r + 1}, column ${columnLetter(col)} ("${cellText(header[col])}"): "${text}" is not a number. Correct the cell, or choose a numeric column.`);
-        }
-        value = Number(text.replace(',', '.'));
-      }
-      out.values.push(value);
-      out.rows.push(r + 1);
-      const id = idCol >= 0 ? cellText(row[idCol]).trim() : '';
-      out.labels.push(id !== '' ? id : `row ${r + 1}`);
-      out.groups.push(byCol >= 0 ? cellText(row[byCol]).trim() : null);
-    }
-    return { ...out, skippedBlank, skippedTokens };
-  }
-  throw new InputError(`No sheet of ${basename(path)} has a column headed "${column}". Check the header text (see: weighbridge check ${basename(path)}).`);
+  return read.value;
 }
 
 /** The statistics object of `stats --json` (keys as in docs/cli.md). */
@@ -451,20 +372,23 @@ async function stats(args: readonly string[], io: CliIo): Promise<number> {
   if (values.column === undefined || values.column.trim() === '') throw new UsageError('stats needs --column <header of a numeric column>.');
   const quantileType = quantileTypeOption(values['quantile-type']);
   if (io.progress) io.err(`Reading ${basename(path)}…`);
-  const col = await readColumn(path, values.column, values.by, values.sheet);
-  const overall = statsJson(describe(col.values, { quantileType, labels: col.labels }), col.rows);
-  const skipped = { blank: col.skippedBlank, tokens: col.skippedTokens };
+  const col = await readStatsColumn(path, values.column, values.by, values.sheet);
+  const overall = statsJson(describe(col.values.map((v) => v.value), { quantileType, labels: col.values.map((v) => v.label) }), col.values.map((v) => v.row));
+  const skipped = {
+    blank: col.skipped.filter((s) => s.reason === 'blank').length,
+    tokens: col.skipped.filter((s) => s.reason === 'token').length,
+  };
   if (values.by === undefined) {
     if (values.json) io.out(JSON.stringify({ file: basename(path), sheet: col.sheet, column: values.column, skipped, ...overall }, null, 2));
     else io.out(statsText(`${values.column} (sheet "${col.sheet}")`, overall));
     return EXIT_OK;
   }
   const names: string[] = [];
-  for (const g of col.groups) if (g !== null && !names.includes(g)) names.push(g);
+  for (const v of col.values) if (v.group !== null && !names.includes(v.group)) names.push(v.group);
   const groups = names.map((name) => {
-    const idx = col.groups.flatMap((g, i) => (g === name ? [i] : []));
-    const summary = describe(idx.map((i) => col.values[i]!), { quantileType, labels: idx.map((i) => col.labels[i]!) });
-    return { group: name, ...statsJson(summary, idx.map((i) => col.rows[i]!)) };
+    const members = col.values.filter((v) => v.group === name);
+    const summary = describe(members.map((v) => v.value), { quantileType, labels: members.map((v) => v.label) });
+    return { group: name, ...statsJson(summary, members.map((v) => v.row)) };
   });
   if (values.json) {
     io.out(JSON.stringify({ file: basename(path), sheet: col.sheet, column: values.column, by: values.by, skipped, groups, overall }, null, 2));

@@ -44,7 +44,16 @@ export const argSchemas: ArgSchemaTable = {
   previewMerge: z.tuple([courseProjectSchema, absolutePathSchema, importLayoutSchema]),
   loadProject: z.tuple([absolutePathSchema]),
   saveProject: z.tuple([absolutePathSchema, courseProjectSchema]),
-  exportFinals: z.tuple([exportRequestSchema.refine((r) => isAbsolute(r.path), { message: 'Give the full (absolute) path to export to.', path: ['path'] })]),
+  exportFinals: z.tuple([
+    exportRequestSchema
+      .refine((r) => isAbsolute(r.path), { message: 'Give the full (absolute) path to export to.', path: ['path'] })
+      // The open project's path is compared with the target by file identity: a relative one would
+      // be resolved against the main process's working directory and could miss.
+      .refine((r) => r.projectPath === undefined || r.projectPath === null || isAbsolute(r.projectPath), {
+        message: 'The open project path must be a full (absolute) path.',
+        path: ['projectPath'],
+      }),
+  ]),
   writeRecovery: z.tuple([projectPathOrNull, courseProjectSchema]),
   readRecovery: noArgs,
   discardRecovery: noArgs,

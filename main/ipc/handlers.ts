@@ -93,6 +93,8 @@ export function createHandlersFrom(services: BridgeServices, deps: BridgeDeps): 
       if (result.ok) await remember(result.value.path);
       return result;
     },
+    // The request carries the open project's path (`projectPath`), so the export can refuse to
+    // replace it; it is passed on whole.
     exportFinals: (request) => services.exportFinals(request),
     writeRecovery: (projectPath, project) => services.writeRecovery(projectPath, project),
     readRecovery: () => services.readRecovery(),

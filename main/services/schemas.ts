@@ -304,6 +304,7 @@ export const exportRequestSchema = z.strictObject({
     assessmentStatistics: z.boolean(),
   }),
   overwrite: z.boolean(),
+  projectPath: nonEmpty.nullable().optional(),
 });
 
 export const fileKindSchema = z.enum(['spreadsheet', 'project', 'export']);

@@ -154,6 +154,8 @@ export interface ExportRequest {
   };
   /** The user has confirmed overwriting an existing file. */
   readonly overwrite: boolean;
+  /** Path of the open project file, which the export must never replace; null/absent when unsaved. */
+  readonly projectPath?: string | null;
 }
 
 export type Failure = {

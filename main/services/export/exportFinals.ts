@@ -4,9 +4,10 @@
  * in an xlsx file, sibling files beside a CSV (`<name>.breakdown.csv`, `<name>.sections.csv`,
  * `<name>.assessments.csv`).
  *
- * Safety: never writes the course's source spreadsheet or a Weighbridge project file (checked by
- * path, by file identity and by content); an existing file is replaced only when the user has
- * confirmed (`overwrite`), otherwise code 'exists'. Every file is written atomically.
+ * Safety: never writes the course's source spreadsheet or a Weighbridge project file (the open one
+ * named by `request.projectPath`, checked by path and file identity; any other by its content); an
+ * existing file is replaced only when the user has confirmed (`overwrite`), otherwise code
+ * 'exists'. Every file is written atomically.
  */
 import { open } from 'node:fs/promises';
 import { basename, extname } from 'node:path';
@@ -16,11 +17,6 @@ import { fail, ioFailure, ok } from '../project/result';
 import { describeIssues, exportRequestSchema } from '../schemas';
 import { assessmentStatisticsTable, breakdownTable, finalsTable, gradeProject, sectionStatisticsTable, type Table } from './tables';
 import { tableToCsv, tablesToXlsx } from './writers';
-
-export interface ExportOptions {
-  /** Path of the open project file, which the export must never replace. */
-  readonly projectPath?: string | null;
-}
 
 export interface ExportOutcome {
   readonly path: string;
@@ -54,10 +50,10 @@ async function head(path: string): Promise<Buffer | null> {
 
 const PROJECT_MARKER = /"format"\s*:\s*"weighbridge-(project|plan|recovery)"/;
 
-export async function exportFinals(request: ExportRequest, options: ExportOptions = {}): Promise<Result<ExportOutcome>> {
+export async function exportFinals(request: ExportRequest): Promise<Result<ExportOutcome>> {
   const valid = exportRequestSchema.safeParse(request);
   if (!valid.success) return fail('bad-input', `The export was not written: ${describeIssues(valid.error, ['request'])}.`);
-  const { path, format, project, include } = request;
+  const { path, format, project, include, projectPath } = request;
   const ext = extname(path).toLowerCase();
   if (ext !== `.${format}`) {
     return fail('bad-input', `The file name "${basename(path)}" does not end in .${format}; choose a name ending in .${format} for this export.`);
@@ -82,7 +78,7 @@ export async function exportFinals(request: ExportRequest, options: ExportOption
       if (project.source && (await sameFile(file.path, project.source.path))) {
         return fail('bad-input', `"${name}" is the course's source spreadsheet; Weighbridge never writes it. Choose another file name for the export.`);
       }
-      if (options.projectPath && (await sameFile(file.path, options.projectPath))) {
+      if (projectPath && (await sameFile(file.path, projectPath))) {
         return fail('bad-input', `"${name}" is the open project file; an export would replace the course. Choose another file name for the export.`);
       }
       const existing = await head(file.path);

@@ -1,5 +1,5 @@
 /** Final-marks export with formula-injection defence. */
-export { exportFinals, csvSiblingPath, type ExportOptions, type ExportOutcome } from './exportFinals';
+export { exportFinals, csvSiblingPath, type ExportOutcome } from './exportFinals';
 export { neutraliseCell, needsNeutralising, stripNeutraliser } from './neutralise';
 export {
   assessmentStatisticsTable,

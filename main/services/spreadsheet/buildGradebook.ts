@@ -21,6 +21,7 @@ import type { Assessment, Gradebook, Score, Student } from '../../../renderer/en
 import { parseScore } from '../../../renderer/engine/grading/parseScore';
 import { columnLetter } from './columnLetter';
 import { plainNumber } from './detectLayout';
+import { stripNeutraliser } from '../export/neutralise';
 import { possibleFromHeader, SUMMARY_ROW_LABEL } from './headerWords';
 import { problemAt, quote } from './problems';
 import { cellText, isBlank, type Cell, type RawBook, type RawSheet } from './readBook';
@@ -221,9 +222,8 @@ function readStudents(
     const row = sheet.rows[r] ?? [];
     if (row.every((cell) => isBlank(cell))) continue;
     const rowNo = r + 1;
-    const idCell = row[idCol.index] ?? null;
-    const id = cellText(idCell).trim();
-    const label = personCols.map((c) => cellText(row[c.index]).trim()).find((t) => t !== '') ?? cellText(row.find((cell) => !isBlank(cell))).trim();
+    const id = identityText(row[idCol.index]);
+    const label = personCols.map((c) => identityText(row[c.index])).find((t) => t !== '') ?? cellText(row.find((cell) => !isBlank(cell))).trim();
     if (id === '' || SUMMARY_ROW_LABEL.test(id)) {
       if (SUMMARY_ROW_LABEL.test(label)) {
         problems.push(problemAt('warning', 'summary-row-skipped', { sheet: sheet.name, row: rowNo, value: label }, `this row (${quote(label)}) looks like a summary of the students, not a student, and was skipped.`));
@@ -287,7 +287,7 @@ function readScore(cell: Cell, a: PlannedAssessment, layout: ImportLayout, where
 }
 
 function makeStudent(p: PlannedSheet, row: readonly Cell[], id: string, layout: ImportLayout): Student {
-  const text = (c: ColumnLayout | undefined): string => (c === undefined ? '' : cellText(row[c.index]).trim());
+  const text = (c: ColumnLayout | undefined): string => (c === undefined ? '' : identityText(row[c.index]));
   const full = text(p.role('name'));
   const first = text(p.role('firstName'));
   const last = text(p.role('lastName'));
@@ -295,6 +295,16 @@ function makeStudent(p: PlannedSheet, row: readonly Cell[], id: string, layout: 
   const section = layout.sectionFrom === 'sheetName' ? p.sheet.name : text(p.role('section'));
   const email = text(p.role('email'));
   return email === '' ? { id, name, section } : { id, name, section, email };
+}
+
+/**
+ * The text of an identity cell (ID, name, first/last name, section, e-mail): trimmed, then with
+ * the `'` our own export put before formula-like text removed (OWASP "CSV Injection" defence,
+ * export/neutralise.ts), so re-importing an export gives back the same roster. A number cell
+ * (an ID stored as a number) reads as its digits.
+ */
+export function identityText(cell: Cell | undefined): string {
+  return stripNeutraliser(cellText(cell).trim());
 }
 
 function isRowIndex(n: number, sheet: RawSheet): boolean {

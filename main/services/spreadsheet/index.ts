@@ -26,12 +26,14 @@ import { detectLayout } from './detectLayout';
 import { previewMergeBooks, type MergeDetails } from './merge';
 import { hasErrors } from './problems';
 import { cellText, readBook, type RawBook, type ReadOverride } from './readBook';
+import { readColumnBytes, type ColumnReading, type ColumnReadOptions } from './readColumn';
 import { isTextEncoding } from './textEncoding';
 
 export { columnLetter } from './columnLetter';
 export { previewMergeBooks, scoreWords, type MergeDetails } from './merge';
 export { detectEncoding } from './textEncoding';
 export type { ReadOverride } from './readBook';
+export type { ColumnPlace, ColumnReading, ColumnReadOptions, ColumnValue, SkippedCell } from './readColumn';
 
 /** Rows per sheet in a preview. */
 export const PREVIEW_ROWS = 50;
@@ -113,6 +115,22 @@ export function detectAndImportBytes(
   if (detection.layout.sheets.length === 0) return refuse([...read.book.problems, ...detection.problems]);
   const outcome = finish(read.book, detection.layout, [...read.book.problems, ...detection.problems]);
   return outcome.ok ? { ok: true, value: { ...outcome.value, layout: detection.layout } } : outcome;
+}
+
+/**
+ * One numeric column of any spreadsheet (not only a gradebook), each value with its 1-based row
+ * and a label (the row's student ID, else "row N"), optionally grouped by the text of a `by`
+ * column. Blank cells and score tokens (EX, pending …) are skipped and listed; a cell that is not
+ * a number is a located error (sheet, row, column letter, header, value). Which sheet, header row
+ * and rows count is decided as written in readColumn.ts.
+ *
+ *   const r = await readColumn('marks.xlsx', { column: 'Final exam', by: 'Section' });
+ *   if (r.ok) r.value.values // [{ value: 41, row: 3, label: 'S01', group: 'A' }, …]
+ */
+export async function readColumn(path: string, options: ColumnReadOptions): Promise<Result<ColumnReading>> {
+  const bytes = await readBytes(path);
+  if (!bytes.ok) return bytes;
+  return readColumnBytes(bytes.value, basename(path), options);
 }
 
 export async function previewMerge(current: CourseProject, path: string, layout: ImportLayout): Promise<Result<MergeDetails & { problems: readonly ImportProblem[] }>> {

@@ -7,6 +7,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type DragEvent, type KeyboardEvent as ReactKeyboardEvent } from 'react';
 import { useBridge } from '../../bridge/BridgeContext';
 import type { MenuCommand } from '../../bridge/extras';
+import { fileKindOfPath, PROJECT_FILE_EXTENSION } from '../../bridge/fileKinds';
 import { useCourseStore } from '../../state/courseStore';
 import { Button } from '../common/Button';
 import { Modal } from '../common/Modal';
@@ -18,9 +19,7 @@ import { formatTime } from './formatTime';
 import { defaultWorkspace, workspaces, type WorkspaceId } from './workspaces';
 import './frame.css';
 
-const PROJECT_EXTENSION = '.weighbridge';
 const NOTICE_MS = 6000;
-
 
 interface PendingPath {
   readonly request: PathRequest;
@@ -42,7 +41,7 @@ function directoryOf(path: string): string {
 
 function safeFileName(title: string): string {
   const cleaned = title.replace(/[\\/:*?"<>|]+/g, ' ').replace(/\s+/g, ' ').trim();
-  return (cleaned === '' ? 'course' : cleaned) + PROJECT_EXTENSION;
+  return (cleaned === '' ? 'course' : cleaned) + PROJECT_FILE_EXTENSION;
 }
 
 /** Text fields keep their own Ctrl+Z; the course history takes it everywhere else. */
@@ -152,6 +151,19 @@ export function Frame() {
     setWorkspace('import');
   }, []);
 
+  /**
+   * A path that came without a kind (recent file, command line, drop): projects open, anything
+   * else goes to the Import workspace — an unknown extension too, since the importer decides the
+   * type from the bytes and names the file when it cannot read it.
+   */
+  const openPath = useCallback(
+    (path: string) => {
+      if (fileKindOfPath(path) === 'project') void openProject(path);
+      else requestImport(path);
+    },
+    [openProject, requestImport],
+  );
+
   const chooseSpreadsheet = useCallback(async () => {
     const path = await choosePath({ kind: 'spreadsheet', mode: 'open', title: 'Import a spreadsheet' });
     if (path !== null) requestImport(path);
@@ -160,7 +172,7 @@ export function Frame() {
   const runCommand = useCallback(
     (command: MenuCommand) => {
       if (typeof command === 'object') {
-        void openProject(command.path);
+        openPath(command.path);
         return;
       }
       switch (command) {
@@ -173,7 +185,7 @@ export function Frame() {
         case 'redo': store.redo(); break;
       }
     },
-    [chooseSpreadsheet, openProject, save, saveAs, store],
+    [chooseSpreadsheet, openPath, openProject, save, saveAs, store],
   );
 
   // Native menu (desktop app only).
@@ -217,8 +229,7 @@ export function Frame() {
       notify('A dropped file has no path in this window. Use Import and type the file path instead.', 'error');
       return;
     }
-    if (path.toLowerCase().endsWith(PROJECT_EXTENSION)) void openProject(path);
-    else requestImport(path);
+    openPath(path);
   };
 
   const frame = useMemo<FrameApi>(

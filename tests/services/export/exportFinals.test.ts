@@ -179,7 +179,7 @@ describe('exportFinals: refusals', () => {
     const projectPath = join(dir, 'course.csv');
     await saveProject(projectPath, sampleProject());
     const before = await readFile(projectPath);
-    const byPath = await exportFinals(request(projectPath, 'csv', undefined, { overwrite: true }), { projectPath });
+    const byPath = await exportFinals(request(projectPath, 'csv', undefined, { overwrite: true, projectPath }));
     expect(!byPath.ok && byPath.message).toContain('open project file');
     const byContent = await exportFinals(request(projectPath, 'csv', undefined, { overwrite: true }));
     expect(!byContent.ok && byContent.message).toContain('Weighbridge project or plan file');
