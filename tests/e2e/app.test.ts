@@ -57,6 +57,18 @@ describe('app frame', { timeout: 90_000 }, () => {
     expect(pageErrors).toEqual([]);
   });
 
+  it('opens the export dialog from any workspace with Ctrl+E and the toolbar button', async () => {
+    const { page } = await start();
+    await page.keyboard.press('Control+2');
+    await page.keyboard.press('Control+E');
+    const dialog = page.getByRole('dialog', { name: 'Export final marks' });
+    await expect.poll(() => dialog.isVisible()).toBe(true);
+    await page.keyboard.press('Escape');
+    await expect.poll(() => dialog.count()).toBe(0);
+    await page.getByRole('toolbar', { name: 'Course commands' }).getByRole('button', { name: 'Export final marks…' }).click();
+    await expect.poll(() => dialog.isVisible()).toBe(true);
+  });
+
   it('has a workspace tab list that follows the keyboard (arrows, Ctrl+digit)', async () => {
     const { page } = await start();
     const tabs = page.getByRole('tablist', { name: 'Workspaces' }).getByRole('tab');
@@ -147,8 +159,9 @@ describe('app frame', { timeout: 90_000 }, () => {
     const load = first.page.getByRole('button', { name: 'Load into course' });
     await expect.poll(() => load.isEnabled(), { timeout: 15_000 }).toBe(true);
     await load.click();
-    const importedTitle = await first.page.getByRole('banner').getByRole('heading', { level: 1 }).textContent();
-    expect(importedTitle).not.toBe(demo.title);
+    const heading = first.page.getByRole('banner').getByRole('heading', { level: 1 });
+    await expect.poll(() => heading.textContent(), { timeout: 15_000 }).not.toBe(demo.title);
+    const importedTitle = await heading.textContent();
     // The autosave writes the recovery copy after a quiet period; the save state says when.
     await first.page.getByText(/recovery copy/).waitFor({ timeout: 15_000 });
     await first.close();

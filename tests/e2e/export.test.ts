@@ -50,7 +50,7 @@ async function reimportedFinals(path: string, sheetName: string | null, finalHea
 
 async function openExport(page: Page) {
   await page.getByRole('tab', { name: /Sections/ }).click();
-  await page.getByRole('button', { name: 'Export final marks…' }).click();
+  await page.getByRole('toolbar', { name: 'Course commands' }).getByRole('button', { name: 'Export final marks…' }).click();
   const dialog = page.getByRole('dialog', { name: 'Export final marks' });
   await dialog.waitFor();
   return dialog;

@@ -10,6 +10,7 @@ import type { MenuCommand } from '../../bridge/extras';
 import { fileKindOfPath, PROJECT_FILE_EXTENSION } from '../../bridge/fileKinds';
 import { useCourseStore } from '../../state/courseStore';
 import { Button } from '../common/Button';
+import { ExportDialog } from '../export/ExportDialog';
 import { Modal } from '../common/Modal';
 import { FrameContext, type FrameApi, type ImportRequest, type NoticeTone, type PathRequest } from './frameContext';
 import { Notices, type Notice } from './Notices';
@@ -169,6 +170,11 @@ export function Frame() {
     if (path !== null) requestImport(path);
   }, [choosePath, requestImport]);
 
+  const [exportOpen, setExportOpen] = useState(false);
+  const openExport = useCallback(() => {
+    if (store.project !== null) setExportOpen(true);
+  }, [store.project]);
+
   const runCommand = useCallback(
     (command: MenuCommand) => {
       if (typeof command === 'object') {
@@ -180,18 +186,18 @@ export function Frame() {
         case 'import-spreadsheet': void chooseSpreadsheet(); break;
         case 'save': void save(); break;
         case 'save-as': void saveAs(); break;
-        case 'export': setWorkspace('results'); break;
+        case 'export': openExport(); break;
         case 'undo': store.undo(); break;
         case 'redo': store.redo(); break;
       }
     },
-    [chooseSpreadsheet, openPath, openProject, save, saveAs, store],
+    [chooseSpreadsheet, openExport, openPath, openProject, save, saveAs, store],
   );
 
   // Native menu (desktop app only).
   useEffect(() => bridge.onMenuCommand?.(runCommand), [bridge, runCommand]);
 
-  const modalOpen = pendingPath !== null || pendingConfirm !== null;
+  const modalOpen = pendingPath !== null || pendingConfirm !== null || exportOpen;
 
   // Keyboard shortcuts, on the window so they work wherever focus is.
   useEffect(() => {
@@ -204,6 +210,9 @@ export function Frame() {
       } else if (key === 'o') {
         e.preventDefault();
         void openProject();
+      } else if (key === 'e') {
+        e.preventDefault();
+        openExport();
       } else if ((key === 'z' || key === 'y') && !isTextEditing(e.target)) {
         e.preventDefault();
         if (key === 'y' || e.shiftKey) store.redo();
@@ -218,7 +227,7 @@ export function Frame() {
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [modalOpen, openProject, save, saveAs, store]);
+  }, [modalOpen, openExport, openProject, save, saveAs, store]);
 
   const onDrop = (e: DragEvent) => {
     const file = e.dataTransfer.files[0];
@@ -250,7 +259,7 @@ export function Frame() {
         }}
         onDrop={onDrop}
       >
-        <TopBar onOpen={() => void openProject()} onSave={() => void save()} onSaveAs={() => void saveAs()} />
+        <TopBar onOpen={() => void openProject()} onSave={() => void save()} onSaveAs={() => void saveAs()} onExport={openExport} />
         <WorkspaceRail current={workspace} onSelect={setWorkspace} />
         <main className="wb-workspace">
           <div id="wb-workspace-panel" role="tabpanel" aria-labelledby={`wb-tab-${workspace}`}>
@@ -264,6 +273,7 @@ export function Frame() {
         </footer>
         <Notices notices={notices} onDismiss={dismiss} />
       </div>
+      {exportOpen && <ExportDialog onClose={() => setExportOpen(false)} />}
       {pendingPath !== null && (
         <PathDialog request={pendingPath.request} initialPath={pendingPath.initialPath} onDone={pendingPath.resolve} />
       )}
@@ -294,7 +304,7 @@ function SaveState() {
   );
 }
 
-function TopBar({ onOpen, onSave, onSaveAs }: { onOpen(): void; onSave(): void; onSaveAs(): void }) {
+function TopBar({ onOpen, onSave, onSaveAs, onExport }: { onOpen(): void; onSave(): void; onSaveAs(): void; onExport(): void }) {
   const store = useCourseStore();
   const title = store.project?.title ?? 'Weighbridge';
   const students = store.project?.gradebook.students.length;
@@ -315,6 +325,7 @@ function TopBar({ onOpen, onSave, onSaveAs }: { onOpen(): void; onSave(): void; 
         <Button onClick={onOpen} aria-keyshortcuts="Control+O">Open…</Button>
         <Button onClick={onSave} disabled={store.project === null} aria-keyshortcuts="Control+S">Save</Button>
         <Button onClick={onSaveAs} disabled={store.project === null} aria-keyshortcuts="Control+Shift+S">Save as…</Button>
+        <Button onClick={onExport} disabled={store.project === null} aria-keyshortcuts="Control+E">Export final marks…</Button>
         <span className="wb-toolbar-gap" />
         <Button
           onClick={store.undo}

@@ -21,7 +21,7 @@ type Status =
 
 export function ExportDialog({ onClose }: { onClose(): void }) {
   const bridge = useBridge();
-  const { project, results } = useCourseStore();
+  const { project, projectPath, results } = useCourseStore();
   const hasPoints = project?.plan.scale.cutoffs.some((c) => c.gradePoints !== undefined) ?? false;
   const [format, setFormat] = useState<ExportFormat>('xlsx');
   const [columns, setColumns] = useState<ColumnChoice[]>(() => defaultColumns(hasPoints));
@@ -49,7 +49,7 @@ export function ExportDialog({ onClose }: { onClose(): void }) {
 
   const write = async (overwrite: boolean) => {
     setStatus({ kind: 'writing' });
-    const r = await bridge.exportFinals({ path: path.trim(), format, project, columns: chosen, include, overwrite });
+    const r = await bridge.exportFinals({ path: path.trim(), format, project, projectPath, columns: chosen, include, overwrite });
     if (r.ok) setStatus({ kind: 'done', path: r.value.path, rows: r.value.rows });
     else if (r.code === 'exists' && !overwrite) setStatus({ kind: 'confirmOverwrite', message: r.message });
     else setStatus({ kind: 'failed', message: r.message });

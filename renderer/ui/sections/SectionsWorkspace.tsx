@@ -15,7 +15,6 @@ import { sortedCutoffs } from '../../engine/grading/gradeScale';
 import { QUANTILE_METHODS, QUANTILE_TYPES, type QuantileType } from '../../engine/stats/quantile';
 import { useCourseStore } from '../../state/courseStore';
 import { Button } from '../common/Button';
-import { ExportDialog } from '../export/ExportDialog';
 import { ReportPreview } from '../report/ReportPreview';
 import { letterDistribution } from './chartData';
 import { ComparisonPanel } from './ComparisonPanel';
@@ -35,7 +34,7 @@ export function SectionsWorkspace() {
   const { project, results } = useCourseStore();
   const [measureValue, setMeasureValue] = useState('final');
   const [quantileType, setQuantileType] = useState<QuantileType>(7);
-  const [dialog, setDialog] = useState<'none' | 'export' | 'report'>('none');
+  const [dialog, setDialog] = useState<'none' | 'report'>('none');
   const ids = { measure: useId(), quantile: useId(), stats: useId(), title: useId() };
 
   const book = project?.gradebook;
@@ -80,7 +79,6 @@ export function SectionsWorkspace() {
       <div className="wb-sections-head">
         <h1 id={ids.title}>Sections</h1>
         <div className="wb-sections-actions">
-          <Button onClick={() => setDialog('export')}>Export final marks…</Button>
           <Button onClick={() => setDialog('report')}>Report</Button>
         </div>
       </div>
@@ -131,7 +129,6 @@ export function SectionsWorkspace() {
         <ItemAnalysisTable rows={items} categoryName={categoryName} />
       </section>
 
-      {dialog === 'export' && <ExportDialog onClose={() => setDialog('none')} />}
       {dialog === 'report' && <ReportPreview project={project} results={results.students} quantileType={quantileType} onClose={() => setDialog('none')} />}
     </section>
   );
