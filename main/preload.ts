@@ -42,7 +42,7 @@ export function buildPreloadApi(): PreloadApi {
       // A fresh function per method: the page gets no handle on ipcRenderer or the channel names.
       return [method, (...args: unknown[]) => ipcRenderer.invoke(channel, ...args)];
     }),
-  ) as Omit<PreloadApi, 'hasNativeDialogs' | 'onMenuCommand' | 'pathForFile' | 'setDirty'>;
+  ) as Omit<PreloadApi, 'hasNativeDialogs' | 'onMenuCommand' | 'pathForFile' | 'setDirty' | 'printReportToPdf'>;
   return {
     ...calls,
     hasNativeDialogs: true,
@@ -51,6 +51,7 @@ export function buildPreloadApi(): PreloadApi {
     setDirty: async (dirty) => {
       await ipcRenderer.invoke(shellChannels.setDirty, dirty === true);
     },
+    printReportToPdf: (html, path) => ipcRenderer.invoke(shellChannels.printReportToPdf, html, path),
   };
 }
 

@@ -80,3 +80,7 @@ export const argNames: { readonly [M in BridgeMethod]: readonly string[] } = {
 
 /** Internal shell channel `wb:setDirty`: `[dirty]`. */
 export const setDirtyArgsSchema = z.tuple([z.boolean()]);
+
+/** `wb:printReportToPdf`: the report page (bounded, so a runaway page cannot exhaust memory) and an absolute target path. */
+export const MAX_REPORT_HTML_CHARS = 50_000_000;
+export const printReportArgsSchema = z.tuple([z.string().min(1).max(MAX_REPORT_HTML_CHARS), absolutePathSchema]);

@@ -63,6 +63,7 @@ export function isBridgeMethod(name: string): name is BridgeMethod {
 export const shellChannels = {
   command: 'wb:command',
   setDirty: 'wb:setDirty',
+  printReportToPdf: 'wb:printReportToPdf',
 } as const;
 
 export type { MenuCommand, ShellExtras };

@@ -307,7 +307,7 @@ export const exportRequestSchema = z.strictObject({
   projectPath: nonEmpty.nullable().optional(),
 });
 
-export const fileKindSchema = z.enum(['spreadsheet', 'project', 'export']);
+export const fileKindSchema = z.enum(['spreadsheet', 'project', 'export', 'report']);
 
 /** A file-system path argument of an IPC call. */
 export const pathSchema = nonEmpty.max(4096);

@@ -9,7 +9,7 @@
  */
 import { app, BrowserWindow, dialog, ipcMain, Menu, protocol, session, type WebContents } from 'electron';
 import { join, resolve } from 'node:path';
-import type { FileKind } from '../../renderer/bridge/contract';
+import type { FileKind, Result } from '../../renderer/bridge/contract';
 import { shellChannels, type MenuCommand } from '../ipc/channels';
 import type { BridgeDialogs } from '../ipc/handlers';
 import { createBridgeHandlers } from '../ipc/services';
@@ -20,7 +20,8 @@ import { closeChoice, closePrompt, createCrashPolicy, fileFromArgv } from './lif
 import { cautionsText, menuSections, toTemplate, type ShellAction } from './menu';
 import { serveAppRequest } from './protocol';
 import { registerIpc } from './registerIpc';
-import { windowOptions } from './windowOptions';
+import { savePdf } from '../services/report/savePdf';
+import { reportWindowOptions, windowOptions } from './windowOptions';
 
 /** Folder of the bundled main script (dist/main); the preload and renderer sit beside it. */
 function bundleDir(): string {
@@ -76,6 +77,20 @@ function runShellAction(action: ShellAction): void {
 function buildMenu(recentFiles: readonly string[]): void {
   const sections = menuSections({ platform: process.platform, recentFiles, developer: !app.isPackaged });
   Menu.setApplicationMenu(Menu.buildFromTemplate(toTemplate(sections, { sendCommand, runShellAction })));
+}
+
+/** The summary report, printed by Chromium in a hidden, script-less window, then saved atomically. */
+async function printReportToPdf(html: string, path: string): Promise<Result<{ path: string }>> {
+  const win = new BrowserWindow(reportWindowOptions());
+  try {
+    await win.loadURL(`data:text/html;charset=utf-8,${encodeURIComponent(html)}`);
+    const pdf = await win.webContents.printToPDF({ pageSize: 'A4', printBackground: true });
+    return await savePdf(path, pdf);
+  } catch (e) {
+    return { ok: false, code: 'internal', message: `The report could not be printed: ${e instanceof Error ? e.message : String(e)}` };
+  } finally {
+    win.destroy();
+  }
 }
 
 function onSetDirty(senderId: number, value: boolean): void {
@@ -157,7 +172,7 @@ function start(): void {
   app.on('web-contents-created', (_event, contents: WebContents) => guardContents(contents));
   app.on('window-all-closed', () => app.quit());
 
-  registerIpc(ipcMain, handlers, { onSetDirty });
+  registerIpc(ipcMain, handlers, { onSetDirty, printReportToPdf });
 
   void app.whenReady().then(async () => {
     const rendererDir = paths.renderer();

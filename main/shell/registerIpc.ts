@@ -6,7 +6,7 @@
  */
 import type { IpcMainInvokeEvent } from 'electron';
 import type { Failure, Result } from '../../renderer/bridge/contract';
-import { setDirtyArgsSchema } from '../ipc/argSchemas';
+import { printReportArgsSchema, setDirtyArgsSchema } from '../ipc/argSchemas';
 import { bridgeMethods, channelFor, shellChannels } from '../ipc/channels';
 import { dispatchBridgeCall, failure, type BridgeHandlers } from '../ipc/dispatch';
 import { isTrustedSender, type SenderFrame } from './guards';
@@ -33,9 +33,11 @@ export async function handleBridgeInvoke(handlers: BridgeHandlers, method: strin
 export interface ShellIpcOptions {
   /** `wb:setDirty` from a trusted sender: the window's unsaved-changes flag. */
   onSetDirty(senderId: number, dirty: boolean): void;
+  /** `wb:printReportToPdf` from a trusted sender, arguments validated: print the page and save it. */
+  printReportToPdf(html: string, path: string): Promise<Result<{ path: string }>>;
 }
 
-/** Register every bridge channel plus the shell's own `wb:setDirty`. Returns the channels registered. */
+/** Register every bridge channel plus the shell's own channels. Returns the channels registered. */
 export function registerIpc(ipcMain: IpcMainLike, handlers: BridgeHandlers, options: ShellIpcOptions): string[] {
   const channels: string[] = [];
   for (const method of bridgeMethods) {
@@ -51,5 +53,12 @@ export function registerIpc(ipcMain: IpcMainLike, handlers: BridgeHandlers, opti
     return { ok: true, value: null };
   });
   channels.push(shellChannels.setDirty);
+  ipcMain.handle(shellChannels.printReportToPdf, async (event, ...args): Promise<Result<{ path: string }>> => {
+    if (!isTrustedSender(event.senderFrame)) return untrustedSender;
+    const parsed = printReportArgsSchema.safeParse(args);
+    if (!parsed.success) return failure('bad-payload', 'printReportToPdf takes the report page (text) and the full path of a .pdf file.');
+    return options.printReportToPdf(parsed.data[0], parsed.data[1]);
+  });
+  channels.push(shellChannels.printReportToPdf);
   return channels;
 }

@@ -35,3 +35,12 @@ export function windowOptions(preloadPath: string): BrowserWindowConstructorOpti
     webPreferences: webPreferences(preloadPath),
   };
 }
+
+/**
+ * The hidden window that prints the report to PDF: the page is self-contained HTML with no script,
+ * so JavaScript is off, there is no preload, and it gets the same sandbox as the main window.
+ */
+export function reportWindowOptions(): BrowserWindowConstructorOptions {
+  const { preload: _none, ...prefs } = webPreferences('');
+  return { show: false, width: 794, height: 1123, webPreferences: { ...prefs, javascript: false, images: true } };
+}

@@ -175,7 +175,7 @@ export interface RecoveryInfo {
   readonly project: CourseProject;
 }
 
-export type FileKind = 'spreadsheet' | 'project' | 'export';
+export type FileKind = 'spreadsheet' | 'project' | 'export' | 'report';
 
 /** Every call the renderer may make to the main process. */
 export interface DesktopBridge {
@@ -219,4 +219,6 @@ export interface ShellExtras {
   pathForFile(file: File): string;
   /** Tell the main process whether there are unsaved changes (asked about on close). */
   setDirty(dirty: boolean): Promise<void>;
+  /** Print a self-contained HTML page (the summary report) to a PDF file with Electron's printToPDF. */
+  printReportToPdf(html: string, path: string): Promise<Result<{ path: string }>>;
 }

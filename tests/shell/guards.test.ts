@@ -111,18 +111,19 @@ describe('registerIpc', () => {
   }
   const calls: string[] = [];
   const handlers = Object.fromEntries(bridgeMethods.map((m) => [m, async () => { calls.push(m); return { ok: true, value: m }; }])) as unknown as BridgeHandlers;
+  const noPrint = async () => ({ ok: false as const, code: 'unused', message: 'not called in this test' });
   const event = (url: string, parent: unknown = null, id = 7) => ({ senderFrame: { url, parent }, sender: { id } }) as unknown as IpcMainInvokeEvent;
 
-  it('registers one ipcMain.handle for every bridge method plus wb:setDirty', () => {
+  it('registers one ipcMain.handle for every bridge method plus the shell channels', () => {
     const { ipc, handlersByChannel } = recorder();
-    const channels = registerIpc(ipc, handlers, { onSetDirty: () => undefined });
-    expect([...handlersByChannel.keys()].sort()).toEqual([...bridgeMethods.map(channelFor), shellChannels.setDirty].sort());
+    const channels = registerIpc(ipc, handlers, { onSetDirty: () => undefined, printReportToPdf: noPrint });
+    expect([...handlersByChannel.keys()].sort()).toEqual([...bridgeMethods.map(channelFor), shellChannels.setDirty, shellChannels.printReportToPdf].sort());
     expect(channels.sort()).toEqual([...handlersByChannel.keys()].sort());
   });
 
   it(item(17, 'runs a trusted call and refuses the same call from an untrusted frame'), async () => {
     const { ipc, handlersByChannel } = recorder();
-    registerIpc(ipc, handlers, { onSetDirty: () => undefined });
+    registerIpc(ipc, handlers, { onSetDirty: () => undefined, printReportToPdf: noPrint });
     calls.length = 0;
     const listener = handlersByChannel.get('wb:recentFiles');
     expect(await listener?.(event('app://weighbridge/index.html'))).toEqual({ ok: true, value: 'recentFiles' });
@@ -140,11 +141,30 @@ describe('registerIpc', () => {
   it('wb:setDirty takes exactly one boolean from a trusted sender', async () => {
     const { ipc, handlersByChannel } = recorder();
     const seen: [number, boolean][] = [];
-    registerIpc(ipc, handlers, { onSetDirty: (id, dirty) => seen.push([id, dirty]) });
+    registerIpc(ipc, handlers, { onSetDirty: (id, dirty) => seen.push([id, dirty]), printReportToPdf: noPrint });
     const setDirty = handlersByChannel.get(shellChannels.setDirty);
     expect(await setDirty?.(event('app://weighbridge/index.html'), true)).toEqual({ ok: true, value: null });
     expect(await setDirty?.(event('app://weighbridge/index.html'), 'yes')).toMatchObject({ ok: false, code: 'bad-payload' });
     expect(await setDirty?.(event('https://evil.example/'), false)).toMatchObject({ ok: false, code: 'untrusted-sender' });
     expect(seen).toEqual([[7, true]]);
+  });
+
+  it('wb:printReportToPdf takes the page and an absolute path from a trusted sender only', async () => {
+    const { ipc, handlersByChannel } = recorder();
+    const printed: [string, string][] = [];
+    registerIpc(ipc, handlers, {
+      onSetDirty: () => undefined,
+      printReportToPdf: async (html, path) => {
+        printed.push([html, path]);
+        return { ok: true, value: { path } };
+      },
+    });
+    const print = handlersByChannel.get(shellChannels.printReportToPdf);
+    const trusted = event('app://weighbridge/index.html');
+    expect(await print?.(trusted, '<p>report</p>', '/tmp/r.pdf')).toEqual({ ok: true, value: { path: '/tmp/r.pdf' } });
+    expect(await print?.(trusted, '<p>report</p>', 'r.pdf')).toMatchObject({ ok: false, code: 'bad-payload' });
+    expect(await print?.(trusted, 42, '/tmp/r.pdf')).toMatchObject({ ok: false, code: 'bad-payload' });
+    expect(await print?.(event('https://evil.example/'), '<p>x</p>', '/tmp/x.pdf')).toMatchObject({ ok: false, code: 'untrusted-sender' });
+    expect(printed).toEqual([['<p>report</p>', '/tmp/r.pdf']]);
   });
 });

@@ -92,8 +92,8 @@ beforeAll(async () => {
 afterAll(() => rmSync(rec.state.userData, { recursive: true, force: true }));
 
 describe('main entry', () => {
-  it('registers an ipcMain.handle for every DesktopBridge method (and the shell channel)', () => {
-    const expected = [...bridgeMethods.map((m) => channelFor(m)), shellChannels.setDirty].sort();
+  it('registers an ipcMain.handle for every DesktopBridge method (and the shell channels)', () => {
+    const expected = [...bridgeMethods.map((m) => channelFor(m)), shellChannels.setDirty, shellChannels.printReportToPdf].sort();
     expect([...rec.state.ipcHandlers.keys()].sort()).toEqual(expected);
   });
 

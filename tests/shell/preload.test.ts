@@ -40,8 +40,8 @@ beforeAll(async () => {
 });
 
 describe('preload', () => {
-  it(item(20, 'exposes exactly the bridge methods, hasNativeDialogs and the three shell extras'), () => {
-    expect(Object.keys(api).sort()).toEqual([...bridgeMethods, 'hasNativeDialogs', 'onMenuCommand', 'pathForFile', 'setDirty'].sort());
+  it(item(20, 'exposes exactly the bridge methods, hasNativeDialogs and the four shell extras'), () => {
+    expect(Object.keys(api).sort()).toEqual([...bridgeMethods, 'hasNativeDialogs', 'onMenuCommand', 'pathForFile', 'setDirty', 'printReportToPdf'].sort());
     expect(api.hasNativeDialogs).toBe(true);
   });
 
@@ -68,6 +68,12 @@ describe('preload', () => {
     electron.invoke.mockClear();
     await api.setDirty(true);
     expect(electron.invoke.mock.calls).toEqual([[shellChannels.setDirty, true]]);
+  });
+
+  it('sends the report page and path on wb:printReportToPdf', async () => {
+    electron.invoke.mockClear();
+    await api.printReportToPdf('<p>r</p>', '/tmp/r.pdf');
+    expect(electron.invoke.mock.calls).toEqual([[shellChannels.printReportToPdf, '<p>r</p>', '/tmp/r.pdf']]);
   });
 
   it('gives the path of a dropped file through webUtils', () => {

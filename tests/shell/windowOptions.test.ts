@@ -3,7 +3,7 @@
  * (see checklist.ts). Electron's own defaults are not relied on: each preference must be written.
  */
 import { describe, expect, it } from 'vitest';
-import { webPreferences, windowOptions } from '../../main/shell/windowOptions';
+import { reportWindowOptions, webPreferences, windowOptions } from '../../main/shell/windowOptions';
 import { item } from './checklist';
 
 const preload = '/app/dist/main/preload.cjs';
@@ -55,5 +55,15 @@ describe('main window web preferences', () => {
 
   it('is shown only when ready (no blank white frame)', () => {
     expect(windowOptions(preload).show).toBe(false);
+  });
+});
+
+describe('report printing window', () => {
+  it('runs no script, has no preload and keeps the main window sandbox settings', () => {
+    const prefs = reportWindowOptions().webPreferences ?? {};
+    expect(reportWindowOptions().show).toBe(false);
+    expect(prefs.javascript).toBe(false);
+    expect('preload' in prefs).toBe(false);
+    expect(prefs).toMatchObject({ sandbox: true, contextIsolation: true, nodeIntegration: false, webSecurity: true });
   });
 });

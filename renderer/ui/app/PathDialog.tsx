@@ -12,6 +12,7 @@ const kindWords: Record<PathRequest['kind'], string> = {
   spreadsheet: 'a spreadsheet (.xlsx, .xls, .ods, .csv, .tsv)',
   project: 'a course project (.weighbridge)',
   export: 'the export file (.xlsx or .csv)',
+  report: 'the report file (.pdf)',
 };
 
 /** True for "/home/…" and "C:\…" / "C:/…": the services accept absolute paths only. */

@@ -8,7 +8,7 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { createPortal } from 'react-dom';
 import { useBridge } from '../../bridge/BridgeContext';
-import type { CourseProject, Result } from '../../bridge/contract';
+import type { CourseProject } from '../../bridge/contract';
 import type { StudentResult } from '../../engine/results';
 import type { QuantileType } from '../../engine/stats/quantile';
 import { Button } from '../common/Button';
@@ -16,18 +16,13 @@ import { buildReportElement, buildReportHtml } from './buildReportHtml';
 import { REPORT_CSS } from './reportStyles';
 import './reportPreview.css';
 
-/** What the shell would add to the bridge for PDF output (not in the contract yet). */
-interface PdfPrinter {
-  printReportToPdf?(html: string, path: string): Promise<Result<{ path: string }>>;
-}
-
 export function ReportPreview({ project, results, quantileType, onClose }: {
   project: CourseProject;
   results: readonly StudentResult[];
   quantileType: QuantileType;
   onClose(): void;
 }) {
-  const bridge = useBridge() as ReturnType<typeof useBridge> & PdfPrinter;
+  const bridge = useBridge();
   const dialog = useRef<HTMLDialogElement>(null);
   const host = useRef<HTMLDivElement>(null);
   const titleId = useId();
@@ -61,7 +56,7 @@ export function ReportPreview({ project, results, quantileType, onClose }: {
 
   const savePdf = async () => {
     if (bridge.printReportToPdf === undefined) return;
-    const chosen = await bridge.chooseSavePath('export', `${project.title} report.pdf`);
+    const chosen = await bridge.chooseSavePath('report', `${project.title} report.pdf`);
     if (!chosen.ok) return setPdfStatus(chosen.message);
     if (chosen.value === null) return;
     // The self-contained page (inline CSS) is only built here, for the shell; it never enters this document.
