@@ -4,6 +4,7 @@
  * All numbers come from the engine (store results, describeLine, neededOnPending, boundaryList);
  * this screen only arranges them.
  */
+import { REVIEW_CAUTION } from '../app/caution';
 import { useDeferredValue, useId, useMemo, useState } from 'react';
 import { useCourseStore } from '../../state/courseStore';
 import { sortedCutoffs } from '../../engine/grading/gradeScale';
@@ -14,7 +15,6 @@ import { StudentExplanation } from './StudentExplanation';
 import { formatPercent, studentResultList } from './resultsAccess';
 import './results.css';
 
-export const CAUTION_TEXT = "Review every mark against your institution's grading policy before submitting.";
 
 const NO_LETTER = '\u0000none';
 
@@ -101,7 +101,7 @@ export function ResultsWorkspace() {
     <section className="wb-results" aria-labelledby="wb-results-title">
       <header className="wb-results-head">
         <h1 id="wb-results-title">Results</h1>
-        <p className="wb-caution" role="note">{CAUTION_TEXT}</p>
+        <p className="wb-caution" role="note">{REVIEW_CAUTION}</p>
       </header>
       {results.planProblems.length > 0 && (
         <details className="wb-plan-problems">
