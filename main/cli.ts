@@ -24,7 +24,8 @@ import type { Gradebook, GradingPlan } from '../renderer/engine/model';
 import type { StudentResult } from '../renderer/engine/results';
 import { gradeCourse, suggestPlan } from '../renderer/engine/grading';
 import { describe, QUANTILE_TYPES, type QuantileType, type Summary } from '../renderer/engine/stats';
-import { exportFinals, sectionSummaries } from './services/export';
+import { leftOutTotal, outlierStudents, sectionStatistics, type LeftOutCount } from '../renderer/engine/analysis';
+import { exportFinals } from './services/export';
 import { loadPlanFile, sameFile, savePlanFile, serialisePlan } from './services/project';
 import { detectAndImport, readColumn } from './services/spreadsheet';
 
@@ -152,8 +153,12 @@ function table(header: readonly string[], rows: readonly (readonly string[])[]):
 // grade
 // ---------------------------------------------------------------------------------------------
 
-/** The section/course statistics object of `grade --json`. */
-function sectionJson(section: string | null, summary: Summary, withoutMark: number) {
+/**
+ * The section/course statistics object of `grade --json`, from the engine's `sectionStatistics`
+ * on final marks (the Sections screen's numbers). On the final measure the only left-out reason is
+ * "no final mark", so `withoutMark` is the left-out total; outliers are named by student ID.
+ */
+function sectionJson(book: Gradebook, section: string | null, summary: Summary, studentIndices: readonly number[], leftOut: readonly LeftOutCount[]) {
   const fields = {
     mean: summary.mean, median: summary.median, sd: summary.sampleSd, populationSd: summary.populationSd,
     min: summary.min, max: summary.max, q1: summary.q1, q3: summary.q3, iqr: summary.iqr,
@@ -162,7 +167,7 @@ function sectionJson(section: string | null, summary: Summary, withoutMark: numb
   return {
     section,
     n: summary.n,
-    withoutMark,
+    withoutMark: leftOutTotal(leftOut),
     mean: valueOf(summary.mean),
     median: valueOf(summary.median),
     sd: valueOf(summary.sampleSd),
@@ -174,7 +179,7 @@ function sectionJson(section: string | null, summary: Summary, withoutMark: numb
     iqr: valueOf(summary.iqr),
     lowerFence: valueOf(summary.lowerFence),
     upperFence: valueOf(summary.upperFence),
-    outliers: summary.outliers.map((o) => ({ id: o.label, value: o.value, side: o.side })),
+    outliers: outlierStudents(summary, studentIndices).map((o) => ({ id: book.students[o.studentIndex]?.id ?? '', value: o.value, side: o.side })),
     quantileType: summary.quantileType,
     quantileMethod: summary.quantileMethod,
     notes: notesOf(fields),
@@ -255,10 +260,9 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
     io.err(`Wrote ${written.value.rows} final marks to ${written.value.path}. The file holds identifiable student data.`);
   }
 
-  const groups = sectionSummaries(book, students, quantileType);
-  const sections = groups.filter((g) => g.section !== null).map((g) => sectionJson(g.section, g.summary, g.withoutMark));
-  const courseGroup = groups.find((g) => g.section === null);
-  const course = courseGroup ? sectionJson(null, courseGroup.summary, courseGroup.withoutMark) : null;
+  const stats = sectionStatistics(book, students, { measure: { kind: 'final' }, quantileType });
+  const sections = stats.sections.map((g) => sectionJson(book, g.section, g.summary, g.studentIndices, g.leftOut));
+  const course = sectionJson(book, null, stats.course, stats.courseStudentIndices, stats.leftOut);
   if (values.json) {
     io.out(JSON.stringify({
       students: students.map((r, i) => studentJson(book, r, i)),
@@ -274,12 +278,12 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
     students.map((r, i) => [r.studentId, book.students[i]?.name ?? '', r.section, fmt(r.final), r.letter ?? '—']),
   ));
   io.out('');
-  const statRows = [...sections, ...(course ? [course] : [])].map((s) => [
+  const statRows = [...sections, course].map((s) => [
     s.section ?? 'All sections', String(s.n), fmt(s.mean), fmt(s.median), fmt(s.sd), fmt(s.q1), fmt(s.q3),
     s.outliers.map((o) => o.id).join(' ') || '—',
   ]);
   io.out(table(['Section', 'n', 'Mean', 'Median', 'SD (n−1)', 'Q1', 'Q3', 'Outliers'], statRows));
-  io.out(`Quartiles: ${course?.quantileMethod ?? ''}; outliers beyond Q1 − 1.5·IQR or Q3 + 1.5·IQR (Tukey).`);
+  io.out(`Quartiles: ${course.quantileMethod}; outliers beyond Q1 − 1.5·IQR or Q3 + 1.5·IQR (Tukey).`);
   return EXIT_OK;
 }
 

@@ -1,7 +1,7 @@
 /**
  * The command line, run for real: bundled with esbuild exactly as the build does (ESM + require
  * banner), started as a child process on the demo course and on fixtures written here. Expected
- * values come from the engine called directly (gradeCourse, describe) and, for statistics, from
+ * values come from the engine called directly (gradeCourse, sectionStatistics, describe) and, for statistics, from
  * published worked values (Hyndman & Fan 1996 via shared/REFERENCES.md; Tukey 1977 fences).
  */
 import { execFile } from 'node:child_process';
@@ -11,8 +11,11 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { build } from 'esbuild';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { leftOutTotal, sectionsOf, sectionStatistics, type LeftOutCount } from '../../renderer/engine/analysis';
+import type { Defined } from '../../renderer/engine/defined';
 import { gradeCourse } from '../../renderer/engine/grading';
-import { describe as describeStats } from '../../renderer/engine/stats';
+import type { Gradebook } from '../../renderer/engine/model';
+import { describe as describeStats, type Summary } from '../../renderer/engine/stats';
 import { loadPlanFile } from '../../main/services/project';
 import { detectAndImport } from '../../main/services/spreadsheet';
 
@@ -63,6 +66,56 @@ async function fixture(name: string, text: string): Promise<string> {
   return path;
 }
 
+interface SectionJson {
+  section: string | null;
+  n: number;
+  withoutMark: number;
+  mean: number | null;
+  median: number | null;
+  sd: number | null;
+  populationSd: number | null;
+  min: number | null;
+  max: number | null;
+  q1: number | null;
+  q3: number | null;
+  iqr: number | null;
+  lowerFence: number | null;
+  upperFence: number | null;
+  outliers: { id: string; value: number; side: 'low' | 'high' }[];
+  quantileType: number;
+  quantileMethod: string;
+  notes: Record<string, string>;
+}
+
+const valueOf = (d: Defined<number>): number | null => (d.defined ? d.value : null);
+
+/** One `sections[]`/`course` object against the engine's summary of the same group (docs/cli.md fields). */
+function expectSectionJson(json: SectionJson, book: Gradebook, section: string | null, s: Summary, studentIndices: readonly number[], leftOut: readonly LeftOutCount[]) {
+  expect(json).toEqual({
+    section,
+    n: s.n,
+    withoutMark: leftOutTotal(leftOut),
+    mean: valueOf(s.mean),
+    median: valueOf(s.median),
+    sd: valueOf(s.sampleSd), // `sd` is the sample (n − 1) SD
+    populationSd: valueOf(s.populationSd),
+    min: valueOf(s.min),
+    max: valueOf(s.max),
+    q1: valueOf(s.q1),
+    q3: valueOf(s.q3),
+    iqr: valueOf(s.iqr),
+    lowerFence: valueOf(s.lowerFence),
+    upperFence: valueOf(s.upperFence),
+    outliers: s.outliers.map((o) => ({ id: book.students[studentIndices[o.index]!]!.id, value: o.value, side: o.side })),
+    quantileType: s.quantileType,
+    quantileMethod: s.quantileMethod,
+    notes: Object.fromEntries(
+      Object.entries({ mean: s.mean, median: s.median, sd: s.sampleSd, populationSd: s.populationSd, min: s.min, max: s.max, q1: s.q1, q3: s.q3, iqr: s.iqr, lowerFence: s.lowerFence, upperFence: s.upperFence })
+        .flatMap(([k, d]) => (d.defined ? [] : [[k, d.reason]])),
+    ),
+  });
+}
+
 const SMALL_BOOK = [
   'Student ID,Name,Section,Quiz 1,Quiz 2,Exam',
   'Points possible,,,10,10,50',
@@ -107,13 +160,13 @@ describe('weighbridge CLI: usage', () => {
 });
 
 describe('weighbridge grade', () => {
-  it('--json on the demo course equals gradeCourse and describe called directly', async () => {
+  it('--json on the demo course equals gradeCourse and sectionStatistics called directly', async () => {
     const r = await run('grade', demoXlsx, '--plan', demoPlan, '--json');
     expect(r.code).toBe(0);
     const out = JSON.parse(r.stdout) as {
       students: { id: string; name: string; section: string; final: number | null; letter: string | null; gradePoints: number | null; weighted: number | null; effectiveWeights: Record<string, number>; notes: Record<string, string> }[];
-      sections: { section: string; n: number; mean: number | null; median: number | null; sd: number | null; q1: number | null; q3: number | null; outliers: { id: string }[]; notes: Record<string, string> }[];
-      course: { n: number; mean: number | null };
+      sections: SectionJson[];
+      course: SectionJson;
     };
     const imported = await detectAndImport(demoXlsx);
     const plan = await loadPlanFile(demoPlan);
@@ -128,20 +181,47 @@ describe('weighbridge grade', () => {
     );
     // A student without a final mark carries the reason in notes.final, and only then.
     out.students.forEach((s) => expect('final' in s.notes).toBe(s.final === null));
-    const sections = [...new Set(book.students.map((s) => s.section))];
-    expect(out.sections.map((s) => s.section)).toEqual(sections);
-    for (const sec of out.sections) {
-      const finals = expected.filter((s) => s.section === sec.section).flatMap((s) => (s.final === null ? [] : [s.final]));
-      const d = describeStats(finals);
-      expect(sec.n).toBe(d.n);
-      expect(sec.mean).toBe(d.mean.defined ? d.mean.value : null);
-      expect(sec.median).toBe(d.median.defined ? d.median.value : null);
-      // `sd` is the sample (n − 1) SD.
-      expect(sec.sd).toBe(d.sampleSd.defined ? d.sampleSd.value : null);
-      expect(sec.q1).toBe(d.q1.defined ? d.q1.value : null);
-      expect(sec.q3).toBe(d.q3.defined ? d.q3.value : null);
-    }
+    // Sections and course: the engine's analysis on final marks, the numbers the Sections screen shows.
+    const stats = sectionStatistics(book, expected, { measure: { kind: 'final' } });
+    expect(out.sections.map((s) => s.section)).toEqual(sectionsOf(book));
+    out.sections.forEach((sec, k) => {
+      const g = stats.sections[k]!;
+      expectSectionJson(sec, book, g.section, g.summary, g.studentIndices, g.leftOut);
+      // The same figures as describe() on the section's finals, called without the analysis layer.
+      const d = describeStats(expected.filter((x) => x.section === sec.section).flatMap((x) => (x.final === null ? [] : [x.final])));
+      expect([sec.n, sec.mean, sec.sd, sec.q1, sec.q3]).toEqual([d.n, valueOf(d.mean), valueOf(d.sampleSd), valueOf(d.q1), valueOf(d.q3)]);
+      // Every student of the section is in n or in withoutMark.
+      expect(sec.n + sec.withoutMark).toBe(book.students.filter((s) => s.section === sec.section).length);
+    });
+    expectSectionJson(out.course, book, null, stats.course, stats.courseStudentIndices, stats.leftOut);
     expect(out.course.n).toBe(expected.filter((s) => s.final !== null).length);
+    expect(out.course.withoutMark).toBe(expected.filter((s) => s.final === null).length);
+    // Outliers by student ID, each strictly beyond a Tukey fence (Tukey 1977) on that student's final.
+    for (const group of [...out.sections, out.course]) {
+      for (const o of group.outliers) {
+        const i = book.students.findIndex((s) => s.id === o.id);
+        expect(expected[i]!.final).toBe(o.value);
+        expect(o.side === 'low' ? o.value < group.lowerFence! : o.value > group.upperFence!).toBe(true);
+      }
+    }
+    expect(out.course.outliers.length).toBeGreaterThan(0);
+  });
+
+  it('--quantile-type reaches the section statistics: --json equals sectionStatistics with that type', async () => {
+    const r = await run('grade', demoXlsx, '--plan', demoPlan, '--json', '--quantile-type', '6');
+    expect(r.code).toBe(0);
+    const out = JSON.parse(r.stdout) as { sections: SectionJson[]; course: SectionJson };
+    const imported = await detectAndImport(demoXlsx);
+    const plan = await loadPlanFile(demoPlan);
+    if (!imported.ok || !plan.ok) throw new Error('demo course did not load');
+    const book = imported.value.gradebook;
+    const stats = sectionStatistics(book, gradeCourse(book, plan.value).students, { measure: { kind: 'final' }, quantileType: 6 });
+    out.sections.forEach((sec, k) => {
+      const g = stats.sections[k]!;
+      expectSectionJson(sec, book, g.section, g.summary, g.studentIndices, g.leftOut);
+    });
+    expectSectionJson(out.course, book, null, stats.course, stats.courseStudentIndices, stats.leftOut);
+    expect(out.course.quantileType).toBe(6);
   });
 
   it('prints a table by default and the same finals from the demo CSV as from the xlsx', async () => {

@@ -64,7 +64,7 @@ export async function exportFinals(request: ExportRequest): Promise<Result<Expor
   const extras: { suffix: 'breakdown' | 'sections' | 'assessments'; table: Table }[] = [];
   if (include.breakdown) extras.push({ suffix: 'breakdown', table: breakdownTable(project, graded) });
   if (include.sectionStatistics) extras.push({ suffix: 'sections', table: sectionStatisticsTable(project.gradebook, graded) });
-  if (include.assessmentStatistics) extras.push({ suffix: 'assessments', table: assessmentStatisticsTable(project.gradebook) });
+  if (include.assessmentStatistics) extras.push({ suffix: 'assessments', table: assessmentStatisticsTable(project.gradebook, project.plan, graded) });
 
   const files: { path: string; data: string | Buffer }[] =
     format === 'xlsx'

@@ -7,11 +7,9 @@ export {
   finalsTable,
   gradeProject,
   sectionStatisticsTable,
-  sectionSummaries,
   undefinedReasons,
   type CellValue,
   type GradedCourse,
-  type GroupSummary,
   type Table,
 } from './tables';
 export { tableToCsv, tablesToXlsx } from './writers';

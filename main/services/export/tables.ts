@@ -1,13 +1,16 @@
 /**
  * The export's content as plain tables (header + rows of text, numbers or blanks), computed once
  * and written as xlsx sheets or CSV files. The figures come from the engine: finals from
- * `gradeCourse`, explanation sentences from `describeLine`, statistics from `describe`.
+ * `gradeCourse`, explanation sentences from `describeLine`, statistics from the engine's analysis
+ * (`sectionStatistics`, `itemAnalysis`) — the same computation the Sections screen shows, so the
+ * file cannot drift from the screen. Students are named by ID here (outliers included).
  */
 import type { CourseProject, ExportColumn } from '../../../renderer/bridge/contract';
-import type { Gradebook, Student } from '../../../renderer/engine/model';
+import type { Gradebook, GradingPlan, Student } from '../../../renderer/engine/model';
 import type { StudentResult } from '../../../renderer/engine/results';
 import { describeLine, gradeCourse } from '../../../renderer/engine/grading';
-import { describe, type QuantileType, type Summary } from '../../../renderer/engine/stats';
+import type { QuantileType, Summary } from '../../../renderer/engine/stats';
+import { describeLeftOut, itemAnalysis, outlierStudents, sectionStatistics, type LeftOutCount } from '../../../renderer/engine/analysis';
 import type { Defined } from '../../../renderer/engine/defined';
 
 export type CellValue = string | number | null;
@@ -82,87 +85,77 @@ export function undefinedReasons(fields: Readonly<Record<string, Defined<unknown
   return [...seen.entries()].map(([reason, names]) => `${names.join(', ')}: ${reason}`).join('; ');
 }
 
-export interface GroupSummary {
-  /** Section name, or null for the whole course. */
-  readonly section: string | null;
-  readonly summary: Summary;
-  /** Students in the group without a final mark (left out of the statistics). */
-  readonly withoutMark: number;
-}
-
-/** `describe` on the final marks of each section (in roster order of first appearance) and the course. */
-export function sectionSummaries(book: Gradebook, results: readonly StudentResult[], quantileType: QuantileType = 7): GroupSummary[] {
-  const sections: string[] = [];
-  for (const s of book.students) if (!sections.includes(s.section)) sections.push(s.section);
-  const group = (section: string | null): GroupSummary => {
-    const values: number[] = [];
-    const labels: string[] = [];
-    let withoutMark = 0;
-    book.students.forEach((s, i) => {
-      if (section !== null && s.section !== section) return;
-      const final = results[i]?.final ?? null;
-      if (final === null) withoutMark += 1;
-      else {
-        values.push(final);
-        labels.push(s.id);
-      }
-    });
-    return { section, summary: describe(values, { quantileType, labels }), withoutMark };
-  };
-  return [...sections.map((s) => group(s)), group(null)];
-}
-
 const STAT_HEADER = ['n', 'Mean', 'Median', 'Sample SD', 'Population SD', 'Min', 'Max', 'Q1', 'Q3', 'IQR', 'Lower fence', 'Upper fence', 'Outliers', 'Quantile method', 'Notes'];
 
 /** Statistic columns that carry percents in the assessment table. */
 const PERCENT_COLUMNS = new Set(['Mean', 'Median', 'Sample SD', 'Population SD', 'Min', 'Max', 'Q1', 'Q3', 'IQR', 'Lower fence', 'Upper fence']);
 
-function statCells(summary: Summary, extraNote: string): CellValue[] {
+/** Roster-labelled outliers, "G2342370 (44)": the export names students by ID, never by name. */
+function outlierText(book: Gradebook, summary: Summary, studentIndices: readonly number[]): string {
+  return outlierStudents(summary, studentIndices)
+    .map((o) => `${book.students[o.studentIndex]?.id ?? `row ${o.studentIndex + 1}`} (${o.value})`)
+    .join(', ');
+}
+
+function statCells(summary: Summary, outliers: string, extraNotes: readonly string[]): CellValue[] {
   const fields = {
     mean: summary.mean, median: summary.median, sd: summary.sampleSd, populationSd: summary.populationSd,
     min: summary.min, max: summary.max, q1: summary.q1, q3: summary.q3, iqr: summary.iqr,
     lowerFence: summary.lowerFence, upperFence: summary.upperFence,
   };
-  const notes = [undefinedReasons(fields), extraNote].filter((s) => s !== '').join('; ');
+  const notes = [undefinedReasons(fields), ...extraNotes].filter((s) => s !== '').join('; ');
   return [
     summary.n,
     value(summary.mean), value(summary.median), value(summary.sampleSd), value(summary.populationSd),
     value(summary.min), value(summary.max), value(summary.q1), value(summary.q3), value(summary.iqr),
     value(summary.lowerFence), value(summary.upperFence),
-    summary.outliers.map((o) => `${o.label} (${o.value})`).join(', '),
+    outliers,
     summary.quantileMethod,
     notes,
   ];
 }
 
-export function sectionStatisticsTable(book: Gradebook, graded: GradedCourse): Table {
-  const rows = sectionSummaries(book, graded.results).map((g) => [
-    g.section ?? 'All sections',
-    ...statCells(g.summary, g.withoutMark > 0 ? `${g.withoutMark} without a final mark, left out` : ''),
-  ]);
+/** "left out: 2 no final mark (no category counts yet)", or '' when nobody is left out. */
+function leftOutNote(leftOut: readonly LeftOutCount[]): string {
+  const words = describeLeftOut(leftOut);
+  return words === '' ? '' : `left out: ${words}`;
+}
+
+/**
+ * Final-mark statistics per section (natural order, as on the Sections screen) and for the whole
+ * course: `sectionStatistics` on the final measure, the same numbers the screen shows.
+ */
+export function sectionStatisticsTable(book: Gradebook, graded: GradedCourse, quantileType: QuantileType = 7): Table {
+  const stats = sectionStatistics(book, graded.results, { measure: { kind: 'final' }, quantileType });
+  const rows = [
+    ...stats.sections.map((g) => [g.section, ...statCells(g.summary, outlierText(book, g.summary, g.studentIndices), [leftOutNote(g.leftOut)])]),
+    ['All sections', ...statCells(stats.course, outlierText(book, stats.course, stats.courseStudentIndices), [leftOutNote(stats.leftOut)])],
+  ];
   return { name: 'Section statistics', header: ['Section', ...STAT_HEADER], rows };
 }
 
-/** Per assessment: statistics of the earned percents (earned / possible × 100), and the cell states. */
-export function assessmentStatisticsTable(book: Gradebook): Table {
-  const rows = book.assessments.map((a, j) => {
-    const values: number[] = [];
-    const labels: string[] = [];
-    const counts = { missing: 0, excused: 0, pending: 0 };
-    book.students.forEach((s, i) => {
-      const cell = book.scores[i]?.[j];
-      if (cell === undefined) return;
-      if (cell.kind === 'earned') {
-        values.push((cell.points / a.possible) * 100);
-        labels.push(s.id);
-      } else counts[cell.kind] += 1;
-    });
-    const summary = describe(values, { labels });
-    return [a.name, a.possible, ...statCells(summary, ''), counts.missing, counts.excused, counts.pending];
+/**
+ * Per assessment: course statistics of the item percent (`sectionStatistics` on the assessment
+ * measure: earned / possible × 100 of the earned cells), then the item analysis of the same
+ * assessment — corrected item–total discrimination and the missing/excused/pending counts.
+ */
+export function assessmentStatisticsTable(book: Gradebook, plan: GradingPlan, graded: GradedCourse, quantileType: QuantileType = 7): Table {
+  const rows = itemAnalysis(book, plan).map((item) => {
+    const stats = sectionStatistics(book, graded.results, { measure: { kind: 'assessment', assessmentId: item.assessmentId }, quantileType });
+    const discrimination = item.discrimination.defined ? [] : [`discrimination: ${item.discrimination.reason}`];
+    return [
+      item.name,
+      item.possible,
+      ...statCells(stats.course, outlierText(book, stats.course, stats.courseStudentIndices), [...discrimination, ...item.flags.map((f) => f.message)]),
+      value(item.discrimination),
+      item.missing,
+      item.excused,
+      item.pending,
+    ];
   });
   return {
     name: 'Assessment statistics',
-    header: ['Assessment', 'Points possible', ...STAT_HEADER.map((h) => (PERCENT_COLUMNS.has(h) ? `${h} %` : h)), 'Missing', 'Excused', 'Pending'],
+    header: ['Assessment', 'Points possible', ...STAT_HEADER.map((h) => (PERCENT_COLUMNS.has(h) ? `${h} %` : h)), 'Discrimination', 'Missing', 'Excused', 'Pending'],
     rows,
   };
 }

@@ -1,8 +1,8 @@
 /** Analysis half of the engine: statistics per section, item analysis and section comparison. */
-export { measureValues, sectionsOf, describeLeftOut, LEFT_OUT_WORDS } from './measure';
+export { measureValues, sectionsOf, describeLeftOut, leftOutTotal, LEFT_OUT_WORDS } from './measure';
 export type { Measure, MeasureValues, Observation, LeftOutCount, LeftOutReason } from './measure';
-export { sectionStatistics } from './sectionStatistics';
-export type { SectionStatistics, SectionStatisticsOptions, SectionSummary } from './sectionStatistics';
+export { sectionStatistics, outlierStudents } from './sectionStatistics';
+export type { SectionStatistics, SectionStatisticsOptions, SectionSummary, OutlierStudent } from './sectionStatistics';
 export { pearson, MIN_PAIRS } from './correlation';
 export { itemAnalysis, planWithout, LOW_DISCRIMINATION, VERY_HARD_PERCENT } from './itemAnalysis';
 export type { ItemAnalysis, ItemFlag, ItemFlagCode } from './itemAnalysis';

@@ -71,6 +71,11 @@ function tally(reasons: readonly LeftOutReason[]): LeftOutCount[] {
   return REASON_ORDER.map((reason) => ({ reason, count: reasons.filter((r) => r === reason).length })).filter((c) => c.count > 0);
 }
 
+/** How many students the counts leave out, whatever the reason. */
+export function leftOutTotal(leftOut: readonly LeftOutCount[]): number {
+  return leftOut.reduce((n, c) => n + c.count, 0);
+}
+
 /** The left-out list in words: "3 missing (no submission), 1 excused". Empty string when none. */
 export function describeLeftOut(leftOut: readonly LeftOutCount[]): string {
   return leftOut.map((c) => `${c.count} ${LEFT_OUT_WORDS[c.reason]}`).join(', ');

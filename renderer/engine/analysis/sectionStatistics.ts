@@ -4,12 +4,18 @@
  * leaves out). Every statistic is `describe()` from the statistics engine (sources there: NIST
  * StRD, Hyndman & Fan 1996, Tukey 1977); outliers carry the student's name as label.
  *
+ * Every group also carries the roster index of each value (`studentIndices`, aligned with
+ * `values`), so a caller that labels students differently — the export and the command line use
+ * the student ID — finds the student of an outlier with `outlierStudents` instead of summarising
+ * again. One computation serves the screen, the export file and the CLI.
+ *
  * The course summary pools every section; sections are in natural order. Cost O(n log n).
  */
 import type { Gradebook } from '../model';
 import type { StudentResult } from '../results';
 import { describe, type Summary } from '../stats/describe';
 import type { QuantileType } from '../stats/quantile';
+import type { Outlier } from '../stats/tukeyFences';
 import { measureValues, sectionsOf, type LeftOutCount, type Measure, type Observation } from './measure';
 
 export interface SectionStatisticsOptions {
@@ -23,6 +29,8 @@ export interface SectionSummary {
   /** The values summarised, in roster order (for charts and tests). */
   readonly values: readonly number[];
   readonly names: readonly string[];
+  /** Roster index (position in `book.students`) of each value, aligned with `values`. */
+  readonly studentIndices: readonly number[];
   readonly leftOut: readonly LeftOutCount[];
 }
 
@@ -31,14 +39,50 @@ export interface SectionStatistics {
   readonly course: Summary;
   readonly courseValues: readonly number[];
   readonly courseNames: readonly string[];
+  /** Roster index of each course value, aligned with `courseValues`. */
+  readonly courseStudentIndices: readonly number[];
   readonly leftOut: readonly LeftOutCount[];
   readonly sections: readonly SectionSummary[];
 }
 
-function summarise(obs: readonly Observation[], quantileType: QuantileType): { summary: Summary; values: number[]; names: string[] } {
+interface Summarised {
+  summary: Summary;
+  values: number[];
+  names: string[];
+  studentIndices: number[];
+}
+
+function summarise(obs: readonly Observation[], quantileType: QuantileType): Summarised {
   const values = obs.map((o) => o.value);
   const names = obs.map((o) => o.name);
-  return { summary: describe(values, { quantileType, labels: names }), values, names };
+  const studentIndices = obs.map((o) => o.studentIndex);
+  return { summary: describe(values, { quantileType, labels: names }), values, names, studentIndices };
+}
+
+/** An outlier of a group, located on the roster rather than by label. */
+export interface OutlierStudent {
+  /** Position in `book.students`. */
+  readonly studentIndex: number;
+  readonly value: number;
+  readonly side: Outlier['side'];
+}
+
+/**
+ * The roster index of every outlier of `summary` (`Outlier.index` points into the group's
+ * values; `studentIndices` maps that to the roster), in the summary's order.
+ * @throws {Error} when `studentIndices` does not belong to `summary` (an outlier index past its end)
+ * @example
+ * const s = sectionStatistics(book, results, { measure: { kind: 'final' } }).sections[0];
+ * outlierStudents(s.summary, s.studentIndices).map((o) => book.students[o.studentIndex]?.id);
+ */
+export function outlierStudents(summary: Summary, studentIndices: readonly number[]): OutlierStudent[] {
+  return summary.outliers.map((o) => {
+    const studentIndex = studentIndices[o.index];
+    if (studentIndex === undefined) {
+      throw new Error(`outlierStudents: outlier at value ${o.index} but only ${studentIndices.length} student indices; pass the indices of the same group`);
+    }
+    return { studentIndex, value: o.value, side: o.side };
+  });
 }
 
 /**
@@ -56,13 +100,21 @@ export function sectionStatistics(
   const course = summarise(m.observations, quantileType);
   const sections = sectionsOf(book).map((section) => {
     const s = summarise(m.observations.filter((o) => o.section === section), quantileType);
-    return { section, summary: s.summary, values: s.values, names: s.names, leftOut: m.leftOutBySection[section] ?? [] };
+    return {
+      section,
+      summary: s.summary,
+      values: s.values,
+      names: s.names,
+      studentIndices: s.studentIndices,
+      leftOut: m.leftOutBySection[section] ?? [],
+    };
   });
   return {
     label: m.label,
     course: course.summary,
     courseValues: course.values,
     courseNames: course.names,
+    courseStudentIndices: course.studentIndices,
     leftOut: m.leftOut,
     sections,
   };

@@ -48,6 +48,11 @@ describe('sectionStatistics: every student counted exactly once', () => {
         expect(st.sections.reduce((n, s) => n + s.summary.n, 0)).toBe(st.course.n);
         expect(st.course.n + leftOut).toBe(rows.length);
         expect(st.course.n).toBe(rows.filter(([, s]) => s.kind === 'earned').length);
+        // The sections' roster indices partition the course's: each earned student exactly once.
+        const fromSections = st.sections.flatMap((x) => x.studentIndices).sort((p, q) => p - q);
+        expect(fromSections).toEqual([...st.courseStudentIndices].sort((p, q) => p - q));
+        expect(new Set(fromSections).size).toBe(fromSections.length);
+        expect(st.courseStudentIndices).toEqual(rows.flatMap(([, s], i) => (s.kind === 'earned' ? [i] : [])));
       }),
     );
   });

@@ -4,8 +4,8 @@
  * REFERENCES.md (Hyndman & Fan 1996 tables; Tukey 1977 box-plot example) — not from the engine.
  */
 import { describe, expect, it } from 'vitest';
-import { sectionStatistics } from '../../../renderer/engine/analysis/sectionStatistics';
-import { describeLeftOut } from '../../../renderer/engine/analysis/measure';
+import { outlierStudents, sectionStatistics } from '../../../renderer/engine/analysis/sectionStatistics';
+import { describeLeftOut, leftOutTotal } from '../../../renderer/engine/analysis/measure';
 import type { Defined } from '../../../renderer/engine/defined';
 import { gradeCourse } from '../../../renderer/engine/grading/gradeCourse';
 import type { Score } from '../../../renderer/engine/model';
@@ -102,5 +102,54 @@ describe('sectionStatistics on final marks and on a category', () => {
   it('an unknown assessment or category is a clear error', () => {
     expect(() => sectionStatistics(b, results, { measure: { kind: 'assessment', assessmentId: 'nope' } })).toThrow(/no assessment with id "nope"/);
     expect(() => sectionStatistics(b, results, { measure: { kind: 'category', categoryId: 'nope' } })).toThrow(/no category with id "nope"/);
+  });
+});
+
+describe('sectionStatistics: roster indices, for callers that label students their own way', () => {
+  const measure = { kind: 'assessment', assessmentId: 'a1' } as const;
+
+  it('studentIndices point at the roster row of every value, per section and pooled', () => {
+    const s = sectionStatistics(b, results, { measure });
+    const groups = [
+      ...s.sections.map((g) => ({ section: g.section as string | null, values: g.values, names: g.names, indices: g.studentIndices })),
+      { section: null, values: s.courseValues, names: s.courseNames, indices: s.courseStudentIndices },
+    ];
+    for (const g of groups) {
+      expect(g.indices.length).toBe(g.values.length);
+      g.indices.forEach((i, k) => {
+        const student = b.students[i]!;
+        expect(student.name).toBe(g.names[k]);
+        if (g.section !== null) expect(student.section).toBe(g.section);
+        // The value is that student's own item percent (points out of 100 here).
+        expect(b.scores[i]![0]).toEqual(earned(g.values[k]!));
+      });
+    }
+    // The missing and the excused student are in no group's indices.
+    const missing = b.students.findIndex((x) => x.name === 'South missing');
+    const excused = b.students.findIndex((x) => x.name === 'South excused');
+    expect(s.courseStudentIndices).not.toContain(missing);
+    expect(s.courseStudentIndices).not.toContain(excused);
+  });
+
+  it('outlierStudents finds the box-plot outlier 47 on the roster (REFERENCES.md box plots, type 7)', () => {
+    const north = sectionStatistics(b, results, { measure }).sections[0]!;
+    const ada = b.students.findIndex((x) => x.name === 'Ada Low');
+    expect(outlierStudents(north.summary, north.studentIndices)).toEqual([{ studentIndex: ada, value: 47, side: 'low' }]);
+    // Type 6 fences 45.375 / 88.375: no outlier, so no student either.
+    const six = sectionStatistics(b, results, { measure, quantileType: 6 }).sections[0]!;
+    expect(outlierStudents(six.summary, six.studentIndices)).toEqual([]);
+  });
+
+  it('outlierStudents refuses indices that belong to a smaller group', () => {
+    const north = sectionStatistics(b, results, { measure }).sections[0]!;
+    expect(() => outlierStudents(north.summary, [])).toThrow(/pass the indices of the same group/);
+  });
+
+  it('leftOutTotal adds the left-out counts over every reason', () => {
+    const s = sectionStatistics(b, results, { measure });
+    expect(leftOutTotal(s.leftOut)).toBe(2);
+    expect(leftOutTotal(s.sections[0]!.leftOut)).toBe(0);
+    // Every roster row is either a value or left out.
+    expect(s.courseStudentIndices.length + leftOutTotal(s.leftOut)).toBe(b.students.length);
   });
 });
