@@ -50,11 +50,19 @@ function table(r: Result): string {
       (k) => `| ${k === 'cliMillion' ? '`weighbridge grade` (product CLI)' : 'bench-only streaming grader'} | ${num(r, k, 'rows')} | ${num(r, k, 'seconds')} | ${num(r, k, 'rowsPerSecond')} | ${num(r, k, 'peakRssMiB')} | ${num(r, k, 'ok')} |`,
     ),
     '',
+    '| renderer (Chromium) | students | weight edit → statistics painted, ms | demo course (baseline) ms | ratio | of which: Plan paint / Sections paint / Sections without edit, ms | long tasks > 50 ms per scroll (median; runs) | longest, ms |',
+    '|---|---|---|---|---|---|---|---|',
+    `| ${num(r, 'renderer', 'measured') === 'true' ? 'measured' : 'not measured'} | ${num(r, 'renderer', 'students')} | ${num(r, 'renderer', 'weightEditToPaintMs')} | ${num(r, 'renderer', 'baselineMs')} | ${num(r, 'renderer', 'ratio')} | ${num(r, 'renderer', 'editToPlanPaintMs')} / ${num(r, 'renderer', 'sectionsAfterEditPaintMs')} / ${num(r, 'renderer', 'sectionsWithoutEditPaintMs')} | ${num(r, 'renderer', 'longTasksOver50ms')} (${num(r, 'renderer', 'scrollLongTasksPerRun')}) | ${num(r, 'renderer', 'scrollLongestTaskMs')} |`,
+    '',
     '| target | value | met | reason |',
     '|---|---|---|---|',
     ...Object.entries(r.targets).map(([k, t]) => `| ${k}: ${t.target} | ${t.value ?? '—'} | ${t.met ? 'yes' : '**no**'} | ${t.reason ?? ''} |`),
   ];
-  return `Run ${r.date} (${r.mode}) on ${r.machine.cpus} × ${r.machine.cpuModel}, Node ${r.machine.node}.\n\n${lines.join('\n')}`;
+  const updates = Array.isArray(r['updates'])
+    ? (r['updates'] as { date?: unknown; workloads?: unknown }[]).map((u) => `${Array.isArray(u.workloads) ? u.workloads.join(', ') : '?'} re-measured ${String(u.date)} (\`--only\`)`)
+    : [];
+  const note = updates.length > 0 ? ` Later: ${updates.join('; ')}.` : '';
+  return `Run ${r.date} (${r.mode}) on ${r.machine.cpus} × ${r.machine.cpuModel}, Node ${r.machine.node}.${note}\n\n${lines.join('\n')}`;
 }
 
 async function load(name: string): Promise<Result | null> {

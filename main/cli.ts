@@ -20,14 +20,15 @@ import { parseArgs, type ParseArgsConfig } from 'node:util';
 import pkg from '../package.json' with { type: 'json' };
 import type { CourseProject, ExportColumn, ImportLayout, ImportProblem } from '../renderer/bridge/contract';
 import type { Defined } from '../renderer/engine/defined';
-import type { Gradebook, GradingPlan } from '../renderer/engine/model';
+import type { Gradebook, GradingPlan, Score } from '../renderer/engine/model';
 import type { StudentResult } from '../renderer/engine/results';
-import { gradeCourse, suggestPlan } from '../renderer/engine/grading';
+import { checkPlan, finishStudent, gradeCourse, layoutFor, suggestPlan, weighStudent, type CategoryLayout } from '../renderer/engine/grading';
+import { createStreamGrader, effectiveWeightsOf, fillRow, sectionFinalStatistics, type StreamGrader } from '../renderer/engine/fast';
 import { describe, QUANTILE_TYPES, type QuantileType, type Summary } from '../renderer/engine/stats';
-import { leftOutTotal, outlierStudents, sectionStatistics, type LeftOutCount } from '../renderer/engine/analysis';
-import { exportFinals } from './services/export';
+import { leftOutTotal, outlierStudents, sectionStatistics } from '../renderer/engine/analysis';
+import { exportCsvRows, exportFinals } from './services/export';
 import { loadPlanFile, sameFile, savePlanFile, serialisePlan } from './services/project';
-import { detectAndImport, readColumn } from './services/spreadsheet';
+import { detectAndImport, readColumn, streamImportText } from './services/spreadsheet';
 
 export const EXIT_OK = 0;
 export const EXIT_BAD_INPUT = 1;
@@ -38,6 +39,8 @@ export interface CliIo {
   err(text: string): void;
   /** Show progress lines (stderr is a terminal). */
   readonly progress: boolean;
+  /** Resolves once stdout has taken what was written (backpressure for very long output); optional. */
+  drain?(): Promise<void>;
 }
 
 class UsageError extends Error {}
@@ -143,11 +146,42 @@ function fmt(x: number | null, decimals = 2): string {
   return Number.isInteger(x) ? String(x) : x.toFixed(decimals).replace(/\.?0+$/, '');
 }
 
+/** Column widths by a loop: a spread of one argument per row overflows the call stack on large courses. */
+function columnWidths(header: readonly string[], rowCount: number, rowAt: (i: number) => readonly string[]): number[] {
+  const widths = header.map((h) => h.length);
+  for (let i = 0; i < rowCount; i++) {
+    const row = rowAt(i);
+    for (let c = 0; c < widths.length; c++) {
+      const n = (row[c] ?? '').length;
+      if (n > widths[c]!) widths[c] = n;
+    }
+  }
+  return widths;
+}
+
+const tableLine = (widths: readonly number[]) => (cells: readonly string[]) => cells.map((v, c) => v.padEnd(widths[c] ?? 0)).join('  ').trimEnd();
+
 function table(header: readonly string[], rows: readonly (readonly string[])[]): string {
-  const widths = header.map((h, c) => Math.max(h.length, ...rows.map((r) => (r[c] ?? '').length)));
-  const line = (cells: readonly string[]) => cells.map((v, c) => v.padEnd(widths[c] ?? 0)).join('  ').trimEnd();
+  const widths = columnWidths(header, rows.length, (i) => rows[i] ?? []);
+  const line = tableLine(widths);
   return [line(header), line(widths.map((w) => '-'.repeat(w))), ...rows.map(line)].join('\n');
 }
+
+/** The same text as table(), written in blocks of lines so no string holds every row. */
+async function writeTable(io: CliIo, header: readonly string[], rowCount: number, rowAt: (i: number) => readonly string[]): Promise<void> {
+  const widths = columnWidths(header, rowCount, rowAt);
+  const line = tableLine(widths);
+  io.out([line(header), line(widths.map((w) => '-'.repeat(w)))].join('\n'));
+  for (let i = 0; i < rowCount; i += OUTPUT_BLOCK) {
+    const block: string[] = [];
+    for (let j = i; j < Math.min(rowCount, i + OUTPUT_BLOCK); j++) block.push(line(rowAt(j)));
+    io.out(block.join('\n'));
+    await io.drain?.();
+  }
+}
+
+/** Rows per write when output is produced incrementally. */
+const OUTPUT_BLOCK = 2000;
 
 // ---------------------------------------------------------------------------------------------
 // grade
@@ -158,7 +192,7 @@ function table(header: readonly string[], rows: readonly (readonly string[])[]):
  * on final marks (the Sections screen's numbers). On the final measure the only left-out reason is
  * "no final mark", so `withoutMark` is the left-out total; outliers are named by student ID.
  */
-function sectionJson(book: Gradebook, section: string | null, summary: Summary, studentIndices: readonly number[], leftOut: readonly LeftOutCount[]) {
+function sectionJson(idOf: (studentIndex: number) => string, section: string | null, summary: Summary, studentIndices: readonly number[], withoutMark: number) {
   const fields = {
     mean: summary.mean, median: summary.median, sd: summary.sampleSd, populationSd: summary.populationSd,
     min: summary.min, max: summary.max, q1: summary.q1, q3: summary.q3, iqr: summary.iqr,
@@ -167,7 +201,7 @@ function sectionJson(book: Gradebook, section: string | null, summary: Summary, 
   return {
     section,
     n: summary.n,
-    withoutMark: leftOutTotal(leftOut),
+    withoutMark,
     mean: valueOf(summary.mean),
     median: valueOf(summary.median),
     sd: valueOf(summary.sampleSd),
@@ -179,7 +213,7 @@ function sectionJson(book: Gradebook, section: string | null, summary: Summary, 
     iqr: valueOf(summary.iqr),
     lowerFence: valueOf(summary.lowerFence),
     upperFence: valueOf(summary.upperFence),
-    outliers: outlierStudents(summary, studentIndices).map((o) => ({ id: book.students[o.studentIndex]?.id ?? '', value: o.value, side: o.side })),
+    outliers: outlierStudents(summary, studentIndices).map((o) => ({ id: idOf(o.studentIndex), value: o.value, side: o.side })),
     quantileType: summary.quantileType,
     quantileMethod: summary.quantileMethod,
     notes: notesOf(fields),
@@ -233,6 +267,23 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
   }
   if ((values.extras || values.overwrite) && out === undefined) throw new UsageError('--extras and --overwrite go with --out <file>.');
 
+  const ext = extname(path).toLowerCase();
+  if (ext === '.csv' || ext === '.tsv') {
+    const size = await stat(path).then((st) => (st.isFile() ? st.size : -1), () => -1);
+    if (size > streamThreshold()) {
+      const whole = out !== undefined && (values.extras === true || extname(out).toLowerCase() === '.xlsx');
+      if (whole && size > IN_MEMORY_LIMIT) {
+        throw new InputError(
+          `"${basename(path)}" is ${Math.round(size / 2 ** 20)} MiB; --out .xlsx and --extras hold the whole course in memory and are refused above ${IN_MEMORY_LIMIT / 2 ** 20} MiB. Use --out <name>.csv without --extras for a file this large.`,
+        );
+      }
+      if (!whole) {
+        const code = await gradeStreamed(path, values.plan, { out, overwrite: values.overwrite === true, json: values.json === true, quantileType }, io);
+        if (code !== null) return code;
+      }
+    }
+  }
+
   const imported = await importGradebook(path, io);
   const plan = await loadPlanFile(values.plan);
   if (!plan.ok) throw new InputError(plan.message);
@@ -261,8 +312,9 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
   }
 
   const stats = sectionStatistics(book, students, { measure: { kind: 'final' }, quantileType });
-  const sections = stats.sections.map((g) => sectionJson(book, g.section, g.summary, g.studentIndices, g.leftOut));
-  const course = sectionJson(book, null, stats.course, stats.courseStudentIndices, stats.leftOut);
+  const idOf = (i: number) => book.students[i]?.id ?? '';
+  const sections = stats.sections.map((g) => sectionJson(idOf, g.section, g.summary, g.studentIndices, leftOutTotal(g.leftOut)));
+  const course = sectionJson(idOf, null, stats.course, stats.courseStudentIndices, leftOutTotal(stats.leftOut));
   if (values.json) {
     io.out(JSON.stringify({
       students: students.map((r, i) => studentJson(book, r, i)),
@@ -278,12 +330,173 @@ async function grade(args: readonly string[], io: CliIo): Promise<number> {
     students.map((r, i) => [r.studentId, book.students[i]?.name ?? '', r.section, fmt(r.final), r.letter ?? '—']),
   ));
   io.out('');
+  printStatistics(io, sections, course);
+  return EXIT_OK;
+}
+
+type SectionJson = ReturnType<typeof sectionJson>;
+
+function printStatistics(io: CliIo, sections: readonly SectionJson[], course: SectionJson): void {
   const statRows = [...sections, course].map((s) => [
     s.section ?? 'All sections', String(s.n), fmt(s.mean), fmt(s.median), fmt(s.sd), fmt(s.q1), fmt(s.q3),
     s.outliers.map((o) => o.id).join(' ') || '—',
   ]);
   io.out(table(['Section', 'n', 'Mean', 'Median', 'SD (n−1)', 'Q1', 'Q3', 'Outliers'], statRows));
   io.out(`Quartiles: ${course.quantileMethod}; outliers beyond Q1 − 1.5·IQR or Q3 + 1.5·IQR (Tukey).`);
+}
+
+/** Text gradebooks larger than this (bytes) are streamed; `WEIGHBRIDGE_STREAM_ABOVE` overrides it. */
+const STREAM_ABOVE = 16 * 2 ** 20;
+/** Largest gradebook for which --out .xlsx / --extras (which need the whole course) are accepted. */
+const IN_MEMORY_LIMIT = 256 * 2 ** 20;
+
+function streamThreshold(): number {
+  const raw = process.env['WEIGHBRIDGE_STREAM_ABOVE'];
+  if (raw === undefined || raw.trim() === '') return STREAM_ABOVE;
+  const n = Number(raw);
+  if (!Number.isFinite(n) || n < 0) throw new UsageError(`WEIGHBRIDGE_STREAM_ABOVE must be a number of bytes (0 or more); got "${raw}".`);
+  return n;
+}
+
+interface StreamOptions {
+  readonly out: string | undefined;
+  readonly overwrite: boolean;
+  readonly json: boolean;
+  readonly quantileType: QuantileType;
+}
+
+/**
+ * `grade` on a large .csv/.tsv without holding the gradebook: rows are streamed from the file
+ * (spreadsheet service streamImportText: layout detected on the first rows, every problem located
+ * as in the in-memory import) into the engine's createStreamGrader (property-tested equal to
+ * gradeCourse); sectionFinalStatistics gives the statistics. The output is the in-memory path's,
+ * byte for byte (tests/cli/streaming.test.ts), written in blocks. Kept per student: the Student,
+ * 8 bytes of percent, a status byte per category; a Set of IDs while reading.
+ * Returns null when the file must be imported in memory after all.
+ */
+async function gradeStreamed(path: string, planPath: string, options: StreamOptions, io: CliIo): Promise<number | null> {
+  const plan = await loadPlanFile(planPath);
+  // A plan error is reported after the import's errors: the in-memory path keeps that order.
+  if (!plan.ok) return null;
+  if (io.progress) io.err(`Reading ${basename(path)} row by row…`);
+  let grader: StreamGrader | null = null;
+  let layout: readonly CategoryLayout[] = [];
+  let noMark = new Map<number, string>();
+  let rows = 0;
+  const streamed = await streamImportText(path, {
+    begin(assessments) {
+      grader = createStreamGrader(assessments, plan.value);
+      layout = layoutFor({ students: [], assessments, scores: [] }, plan.value);
+      noMark = new Map();
+      rows = 0;
+    },
+    row(student, scores) {
+      const g = grader!;
+      fillRow(g.row, scores);
+      // Why there is no mark, in the plain engine's words (rare: only for such students).
+      if (!g.add(student)) noMark.set(rows, weighStudent(student, scores, layout, plan.value).noMarkReason ?? '');
+      rows++;
+      if (io.progress && rows % 100_000 === 0) io.err(`  ${rows} rows graded…`);
+    },
+  });
+  if (streamed === null) return null;
+  if (!streamed.ok) {
+    const errors = (streamed.problems ?? []).filter((p) => p.severity === 'error');
+    throw new InputError([streamed.message, ...problemLines(errors).slice(1)].join('\n'));
+  }
+  const started: StreamGrader | null = grader;
+  if (started === null) return null;
+  const { course, grades } = (started as StreamGrader).finish();
+  const { assessments, problems } = streamed.value;
+  const students = course.students;
+  const S = course.studentCount;
+  // checkPlan reads the score rows only for points that are not finite or negative, which the
+  // import never lets through, and compares their count with the roster's: an array of that length
+  // with no rows in it (forEach skips holes) gives it the count without holding the scores.
+  const planProblems = [...checkPlan({ students, assessments, scores: new Array<Score[]>(S) }, plan.value), ...grades.problems];
+  for (const p of problemLines(problems)) io.err(p);
+  for (const p of planProblems) io.err(`plan: ${p}`);
+
+  const { cutoffs } = course.compiled;
+  const finalOf = (s: number): number | null => (grades.final[s] === grades.final[s] ? grades.final[s]! : null);
+  const cutoffOf = (s: number) => (finalOf(s) === null || grades.letter[s]! < 0 ? undefined : cutoffs[grades.letter[s]!]);
+
+  if (options.out !== undefined) {
+    const written = await exportCsvRows(
+      { path: options.out, sourcePath: path, projectPath: planPath, overwrite: options.overwrite },
+      EXPORT_COLUMNS.map((c) => c.header),
+      S,
+      (s) => {
+        const st = students[s]!;
+        const cutoff = cutoffOf(s);
+        return [st.id, st.name, st.section, finalOf(s), cutoff?.letter ?? null, cutoff?.gradePoints ?? null];
+      },
+    );
+    if (!written.ok) throw new InputError(written.code === 'exists' ? `${written.message} (use --overwrite)` : written.message);
+    io.err(`Wrote ${written.value.rows} final marks to ${written.value.path}. The file holds identifiable student data.`);
+  }
+
+  const stats = sectionFinalStatistics(course, grades, { quantileType: options.quantileType });
+  // Roster indices of each group's values (students with a mark, roster order), as sectionStatistics keeps them.
+  const indicesBy = new Map<string, number[]>();
+  const courseIndices: number[] = [];
+  for (let s = 0; s < S; s++) {
+    if (finalOf(s) === null) continue;
+    const section = students[s]!.section;
+    let list = indicesBy.get(section);
+    if (list === undefined) indicesBy.set(section, (list = []));
+    list.push(s);
+    courseIndices.push(s);
+  }
+  const idOf = (i: number) => students[i]?.id ?? '';
+  const sections = stats.sections.map((g) => sectionJson(idOf, g.section, g.summary, indicesBy.get(g.section ?? '') ?? [], g.noMark));
+  const courseJson = sectionJson(idOf, null, stats.course.summary, courseIndices, stats.course.noMark);
+
+  if (options.json) {
+    const studentAt = (s: number) => {
+      const st = students[s]!;
+      const final = finalOf(s);
+      const cutoff = cutoffOf(s);
+      const notes: Record<string, string> = {};
+      const weighted = grades.hasWeighted[s] === 1 ? grades.weighted[s]! : null;
+      const effectiveWeights = effectiveWeightsOf(course, grades, s);
+      if (weighted === null) notes['final'] = noMark.get(s) ?? '';
+      else if (final === null || cutoff === undefined) {
+        // finishStudent words the reason (adjusted percent not a number, or below every cutoff).
+        const result = finishStudent(st, { weighted, effectiveWeights, lines: [], noMarkReason: null }, grades.adjusted[s]!, [], plan.value);
+        const line = result.lines.find((l) => l.kind === 'noMark');
+        if (line?.kind === 'noMark') notes[final === null ? 'final' : 'letter'] = line.reason;
+      }
+      return { id: st.id, name: st.name, section: st.section, final, letter: cutoff?.letter ?? null, gradePoints: cutoff?.gradePoints ?? null, weighted, effectiveWeights, notes };
+    };
+    // JSON.stringify(whole, null, 2) written piece by piece: each student is indented two levels.
+    const rest = JSON.stringify(
+      { sections, course: courseJson, planProblems, importWarnings: problems.filter((p) => p.severity === 'warning').map((p) => p.message) },
+      null,
+      2,
+    );
+    io.out('{');
+    if (S === 0) io.out('  "students": [],');
+    else {
+      io.out('  "students": [');
+      for (let i = 0; i < S; i += OUTPUT_BLOCK) {
+        const block: string[] = [];
+        const end = Math.min(S, i + OUTPUT_BLOCK);
+        for (let s = i; s < end; s++) block.push(`    ${JSON.stringify(studentAt(s), null, 2).replace(/\n/g, '\n    ')}${s + 1 < S ? ',' : ''}`);
+        io.out(block.join('\n'));
+        await io.drain?.();
+      }
+      io.out('  ],');
+    }
+    io.out(rest.slice(2));
+    return EXIT_OK;
+  }
+  await writeTable(io, ['ID', 'Name', 'Section', 'Final %', 'Letter'], S, (s) => {
+    const st = students[s]!;
+    return [st.id, st.name, st.section, fmt(finalOf(s)), cutoffOf(s)?.letter ?? '—'];
+  });
+  io.out('');
+  printStatistics(io, sections, courseJson);
   return EXIT_OK;
 }
 
@@ -520,6 +733,7 @@ if (isMainModule()) {
     out: (text) => process.stdout.write(`${text}\n`),
     err: (text) => process.stderr.write(`${text}\n`),
     progress: process.stderr.isTTY === true,
+    drain: () => (process.stdout.writableNeedDrain ? new Promise<void>((resolve) => process.stdout.once('drain', () => resolve())) : Promise.resolve()),
   };
   runCli(process.argv.slice(2), io).then(
     (code) => {

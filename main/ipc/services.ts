@@ -5,7 +5,7 @@
  */
 import { createRecentFiles, createRecoveryStore } from '../services/appState';
 import { loadDemoCourse } from '../services/demo';
-import { exportFinals } from '../services/export';
+import { writeExport } from '../services/export';
 import { loadProject, saveProject } from '../services/project';
 import { importSpreadsheet, previewMerge, previewSpreadsheet } from '../services/spreadsheet';
 import type { BridgeHandlers } from './dispatch';
@@ -20,7 +20,8 @@ export function nodeServices(deps: BridgeDeps): BridgeServices {
     previewMerge,
     loadProject: (path) => loadProject(path),
     saveProject: (path, project) => saveProject(path, project),
-    exportFinals,
+    // dispatchBridgeCall has validated the request against exportRequestSchema already.
+    exportFinals: (request) => writeExport(request),
     writeRecovery: (projectPath, project) => recovery.write(projectPath, project),
     readRecovery: () => recovery.read(),
     discardRecovery: () => recovery.discard(),

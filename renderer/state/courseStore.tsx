@@ -77,7 +77,10 @@ export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_L
     void bridge.setDirty?.(dirty);
   }, [bridge, dirty]);
 
-  const apply = useCallback((edit: Edit) => dispatch({ type: 'apply', edit }), []);
+  const apply = useCallback((edit: Edit) => {
+    performance.mark('wb:edit-applied'); // for bench/renderer.ts (edit → paint); no behaviour
+    dispatch({ type: 'apply', edit });
+  }, []);
   const undo = useCallback(() => dispatch({ type: 'undo' }), []);
   const redo = useCallback(() => dispatch({ type: 'redo' }), []);
   const open = useCallback(

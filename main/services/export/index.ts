@@ -1,11 +1,12 @@
 /** Final-marks export with formula-injection defence. */
-export { exportFinals, csvSiblingPath, type ExportOutcome } from './exportFinals';
+export { exportFinals, writeExport, checkTargets, csvSiblingPath, type ExportOutcome } from './exportFinals';
 export { neutraliseCell, needsNeutralising, stripNeutraliser } from './neutralise';
 export {
   assessmentStatisticsTable,
   breakdownTable,
   finalsTable,
   gradeProject,
+  gradeProjectFinalsOnly,
   sectionStatisticsTable,
   undefinedReasons,
   type CellValue,
@@ -13,3 +14,5 @@ export {
   type Table,
 } from './tables';
 export { tableToCsv, tablesToXlsx } from './writers';
+export { exportCsvRows, type CsvRowsTarget } from './streamCsv';
+export { csvLines } from './writers';

@@ -17,16 +17,25 @@ function csvCell(v: CellValue): string | number {
 }
 
 export function tableToCsv(table: Table): string {
-  const data = [table.header.map(csvCell), ...table.rows.map((r) => r.map(csvCell))];
-  const body = Papa.unparse(data, {
+  return `${BOM}${csvLines([table.header, ...table.rows])}\r\n`;
+}
+
+/**
+ * Rows as CSV lines joined by CRLF, without BOM or final line end: tableToCsv's body, so a file
+ * written in blocks (BOM, then each block + CRLF) has the same bytes as tableToCsv of all rows.
+ */
+export function csvLines(rows: readonly (readonly CellValue[])[]): string {
+  const data = rows.map((r) => r.map(csvCell));
+  return Papa.unparse(data, {
     delimiter: ',',
     newline: '\r\n',
     // OWASP: a neutralised field is also quoted. Papa quotes commas, quotes and line breaks itself.
     quotes: (value: unknown) => typeof value === 'string' && value.startsWith("'") && needsNeutralising(value.slice(1)),
     escapeFormulae: false,
   });
-  return `${BOM}${body}\r\n`;
 }
+
+export const CSV_BOM = BOM;
 
 function xlsxCell(v: CellValue): XLSX.CellObject | null {
   if (v === null) return null;

@@ -18,7 +18,7 @@
  */
 import type { ColumnLayout, ImportLayout, ImportProblem, SheetLayout } from '../../../renderer/bridge/contract';
 import type { Assessment, Gradebook, Score, Student } from '../../../renderer/engine/model';
-import { parseScore } from '../../../renderer/engine/grading/parseScore';
+import { scoreReader, type ScoreReader } from '../../../renderer/engine/grading/parseScore';
 import { columnLetter } from './columnLetter';
 import { plainNumber } from './detectLayout';
 import { stripNeutraliser } from '../export/neutralise';
@@ -198,6 +198,16 @@ function resolvePossible(sheet: RawSheet, sl: SheetLayout, col: ColumnLayout, pr
   return null;
 }
 
+/** One assessment column of a sheet, with what every cell of it needs worked out once. */
+interface CellPlan {
+  readonly assessment: PlannedAssessment;
+  /** Position in the gradebook's assessments (and so in each student's scores). */
+  readonly index: number;
+  /** The sheet column it is read from. */
+  readonly column: number;
+  readonly letter: string;
+}
+
 function readStudents(
   p: PlannedSheet,
   layout: ImportLayout,
@@ -215,39 +225,63 @@ function readStudents(
   const absent = assessments.filter((a) => !onSheet.has(a.id));
   const personCols = [idCol, p.role('name'), p.role('firstName'), p.role('lastName')].filter((c): c is ColumnLayout => c !== undefined);
   const start = Math.max(sl.headerRow, sl.possibleRow ?? -1) + 1;
+  const read = scoreReader(layout.tokens);
+  const cells: CellPlan[] = [];
+  for (const a of p.assessments) {
+    const index = assessmentIndex.get(a.id)?.index;
+    if (index !== undefined) cells.push({ assessment: a, index, column: a.column.index, letter: columnLetter(a.column.index) });
+  }
+  // The usual case (one sheet, or this sheet's columns in the gradebook's order): each student's
+  // scores are pushed in order; otherwise they are placed by index over an all-excused row.
+  const inOrder = cells.length === assessments.length && cells.every((c, i) => c.index === i);
+  const idLetter = columnLetter(idCol.index);
   let count = 0;
   let absentReported = false;
 
   for (let r = start; r < sheet.rows.length; r++) {
     const row = sheet.rows[r] ?? [];
-    if (row.every((cell) => isBlank(cell))) continue;
+    if (allBlank(row)) continue;
     const rowNo = r + 1;
     const id = identityText(row[idCol.index]);
-    const label = personCols.map((c) => identityText(row[c.index])).find((t) => t !== '') ?? cellText(row.find((cell) => !isBlank(cell))).trim();
     if (id === '' || SUMMARY_ROW_LABEL.test(id)) {
+      const label = rowLabel(row, personCols);
       if (SUMMARY_ROW_LABEL.test(label)) {
         problems.push(problemAt('warning', 'summary-row-skipped', { sheet: sheet.name, row: rowNo, value: label }, `this row (${quote(label)}) looks like a summary of the students, not a student, and was skipped.`));
         continue;
       }
-    }
-    const idAt = { sheet: sheet.name, row: rowNo, column: columnLetter(idCol.index), header: idCol.header, value: id };
-    if (id === '') {
-      problems.push(problemAt('error', 'blank-id', idAt, `the student ID is blank${label === '' ? '' : ` (row of ${quote(label)})`}. Fill in the ID or delete the row.`));
-      continue;
+      if (id === '') {
+        const idAt = { sheet: sheet.name, row: rowNo, column: idLetter, header: idCol.header, value: id };
+        problems.push(problemAt('error', 'blank-id', idAt, `the student ID is blank${label === '' ? '' : ` (row of ${quote(label)})`}. Fill in the ID or delete the row.`));
+        continue;
+      }
     }
     const dup = idSeen.get(id);
     if (dup !== undefined) {
+      const idAt = { sheet: sheet.name, row: rowNo, column: idLetter, header: idCol.header, value: id };
       const where = dup.sheet === sheet.name ? `row ${dup.row}` : `sheet "${dup.sheet}", row ${dup.row}`;
       problems.push(problemAt('error', 'duplicate-id', idAt, `student ID ${quote(id)} is already used on ${where}. Give each student one row with a unique ID.`));
       continue;
     }
     idSeen.set(id, { sheet: sheet.name, row: rowNo });
 
-    const rowScores: Score[] = assessments.map(() => ({ kind: 'excused' }));
-    for (const a of p.assessments) {
-      const index = assessmentIndex.get(a.id)?.index;
-      if (index === undefined) continue;
-      rowScores[index] = readScore(row[a.column.index] ?? null, a, layout, { sheet: sheet.name, row: rowNo }, problems);
+    let rowScores: Score[];
+    if (inOrder) {
+      rowScores = new Array<Score>(cells.length);
+      for (let k = 0; k < cells.length; k++) {
+        const c = cells[k] as CellPlan;
+        const possible = c.assessment.possible;
+        const cell = row[c.column] ?? null;
+        // The usual cell, inline: a score within points possible and nothing to report.
+        const parsed = possible === null ? null : read(cell, possible);
+        rowScores[k] =
+          parsed !== null && parsed.ok && (parsed.score.kind !== 'earned' || parsed.score.points <= (possible as number))
+            ? parsed.score
+            : readScore(cell, c, read, sheet.name, rowNo, problems);
+      }
+    } else {
+      rowScores = [];
+      for (let i = 0; i < assessments.length; i++) rowScores.push({ kind: 'excused' });
+      for (const c of cells) rowScores[c.index] = readScore(row[c.column] ?? null, c, read, sheet.name, rowNo, problems);
     }
     if (absent.length > 0 && !absentReported) {
       absentReported = true;
@@ -265,36 +299,56 @@ function readStudents(
   }
 }
 
-function readScore(cell: Cell, a: PlannedAssessment, layout: ImportLayout, where: { sheet: string; row: number }, problems: ImportProblem[]): Score {
-  const text = cellText(cell);
-  const at = { ...where, column: columnLetter(a.column.index), header: a.column.header, value: text };
-  if (a.possible === null) return { kind: 'missing' }; // reported once at the column; nothing is imported
-  const parsed = parseScore(cell, a.possible, layout.tokens);
-  if (!parsed.ok) {
-    const negative = (typeof cell === 'number' && cell < 0) || /^\s*[-−]\s*\d/.test(text);
-    if (negative) problems.push(problemAt('error', 'negative-score', at, `${quote(text.trim())} is negative; scores cannot be below 0. Correct the cell.`));
-    else problems.push(problemAt('error', 'unreadable-score', at, `${parsed.message} Correct the cell, or add the word to the score tokens.`));
-    return { kind: 'missing' };
+function allBlank(row: readonly Cell[]): boolean {
+  const blank = isBlank; // one binding read, not one per cell (module getters under tsx)
+  for (const cell of row) if (!blank(cell)) return false;
+  return true;
+}
+
+/** How a row is named in messages: its first filled ID/name cell, else its first filled cell. */
+function rowLabel(row: readonly Cell[], personCols: readonly ColumnLayout[]): string {
+  for (const c of personCols) {
+    const t = identityText(row[c.index]);
+    if (t !== '') return t;
   }
-  const score = parsed.score;
-  if (score.kind === 'earned' && score.points > a.possible) {
+  return cellText(row.find((cell) => !isBlank(cell))).trim();
+}
+
+/** One score cell; its place is built only when there is a problem to report. */
+function readScore(cell: Cell, c: CellPlan, read: ScoreReader, sheet: string, row: number, problems: ImportProblem[]): Score {
+  const a = c.assessment;
+  if (a.possible === null) return { kind: 'missing' }; // reported once at the column; nothing is imported
+  const parsed = read(cell, a.possible);
+  if (parsed.ok) {
+    const score = parsed.score;
+    if (score.kind !== 'earned' || score.points <= a.possible) return score;
+    const text = cellText(cell);
     problems.push(
-      problemAt('warning', 'above-possible', at,
+      problemAt('warning', 'above-possible', { sheet, row, column: c.letter, header: a.column.header, value: text },
         `${quote(text.trim())} is above the ${a.possible} points possible. It is kept as entered; it counts beyond full marks only if the grading plan marks this assessment as extra credit — otherwise correct the cell.`),
     );
+    return score;
   }
-  return score;
+  const text = cellText(cell);
+  const at = { sheet, row, column: c.letter, header: a.column.header, value: text };
+  const negative = (typeof cell === 'number' && cell < 0) || /^\s*[-−]\s*\d/.test(text);
+  if (negative) problems.push(problemAt('error', 'negative-score', at, `${quote(text.trim())} is negative; scores cannot be below 0. Correct the cell.`));
+  else problems.push(problemAt('error', 'unreadable-score', at, `${parsed.message} Correct the cell, or add the word to the score tokens.`));
+  return { kind: 'missing' };
 }
 
 function makeStudent(p: PlannedSheet, row: readonly Cell[], id: string, layout: ImportLayout): Student {
-  const text = (c: ColumnLayout | undefined): string => (c === undefined ? '' : identityText(row[c.index]));
-  const full = text(p.role('name'));
-  const first = text(p.role('firstName'));
-  const last = text(p.role('lastName'));
+  const full = roleText(row, p.role('name'));
+  const first = roleText(row, p.role('firstName'));
+  const last = roleText(row, p.role('lastName'));
   const name = full !== '' ? full : last !== '' && first !== '' ? `${last}, ${first}` : last !== '' ? last : first;
-  const section = layout.sectionFrom === 'sheetName' ? p.sheet.name : text(p.role('section'));
-  const email = text(p.role('email'));
+  const section = layout.sectionFrom === 'sheetName' ? p.sheet.name : roleText(row, p.role('section'));
+  const email = roleText(row, p.role('email'));
   return email === '' ? { id, name, section } : { id, name, section, email };
+}
+
+function roleText(row: readonly Cell[], c: ColumnLayout | undefined): string {
+  return c === undefined ? '' : identityText(row[c.index]);
 }
 
 /**

@@ -248,9 +248,10 @@ function hasRowsFrom(sheet: RawSheet, from: number): boolean {
 /** One pass over the sheet: which columns hold anything from `from` down. */
 function columnsWithData(sheet: RawSheet, from: number): boolean[] {
   const used: boolean[] = new Array<boolean>(sheet.width).fill(false);
+  const blank = isBlank; // one binding read, not one per cell (module getters under tsx)
   for (let r = from; r < sheet.rows.length; r++) {
     const row = sheet.rows[r] ?? [];
-    for (let c = 0; c < row.length; c++) if (!isBlank(row[c])) used[c] = true;
+    for (let c = 0; c < row.length; c++) if (!used[c] && !blank(row[c])) used[c] = true;
   }
   return used;
 }

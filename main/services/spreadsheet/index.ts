@@ -215,3 +215,4 @@ async function readBytes(path: string): Promise<Result<Uint8Array>> {
 function sha256(bytes: Uint8Array): string {
   return createHash('sha256').update(bytes).digest('hex');
 }
+export { streamImportText, STREAM_PREFIX_BYTES, type StreamImportOutcome, type StreamSink } from './stream';

@@ -14,7 +14,7 @@ import Papa from 'papaparse';
 import * as XLSX from 'xlsx';
 import type { ImportProblem, TextEncoding, WorkbookPreview } from '../../../renderer/bridge/contract';
 import { fileProblem, problemAt } from './problems';
-import { decodeText, detectEncoding } from './textEncoding';
+import { decodeText, detectAndDecode } from './textEncoding';
 
 /** One cell as read: text, a number (only from a numeric workbook cell), or blank. */
 export type Cell = string | number | null;
@@ -163,11 +163,12 @@ function sheetFromWorksheet(name: string, ws: unknown): RawSheet {
   const data: unknown = typeof ws === 'object' && ws !== null ? Object.getOwnPropertyDescriptor(ws, '!data')?.value : undefined;
   const rows: Cell[][] = [];
   if (Array.isArray(data)) {
+    const percent = new PercentFormats();
     for (let r = 0; r < data.length; r++) {
       const src: unknown = data[r];
       const row: Cell[] = [];
       if (Array.isArray(src)) {
-        for (let c = 0; c < src.length; c++) row.push(cellFromSheetJs(src[c]));
+        for (let c = 0; c < src.length; c++) row.push(cellFromSheetJs(src[c], percent));
       }
       rows.push(row);
     }
@@ -175,42 +176,61 @@ function sheetFromWorksheet(name: string, ws: unknown): RawSheet {
   return finishSheet(name, rows);
 }
 
+/** Whether a number format shows a percent, remembered per format text (a sheet has few). */
+class PercentFormats {
+  private readonly seen = new Map<string, boolean>();
+  isPercent(z: string): boolean {
+    let known = this.seen.get(z);
+    if (known === undefined) {
+      known = z.replace(/"[^"]*"/g, '').includes('%');
+      this.seen.set(z, known);
+    }
+    return known;
+  }
+}
+
 /** A SheetJS cell object → Cell. Unknown shapes become blank rather than being trusted. */
-function cellFromSheetJs(raw: unknown): Cell {
+function cellFromSheetJs(raw: unknown, percent: PercentFormats): Cell {
   if (typeof raw !== 'object' || raw === null) return null;
   const t = ownValue(raw, 't');
   const v = ownValue(raw, 'v');
-  const w = ownValue(raw, 'w');
-  const text = typeof w === 'string' ? w : null;
   switch (t) {
     case 'n': {
-      if (typeof v !== 'number' || !Number.isFinite(v)) return text;
+      if (typeof v !== 'number' || !Number.isFinite(v)) return textOf(raw);
       const z = ownValue(raw, 'z');
       // A percent-formatted 0.85 is shown as 85% in the sheet: hand it on as the text the user sees.
-      if (typeof z === 'string' && z.replace(/"[^"]*"/g, '').includes('%')) return `${Number((v * 100).toPrecision(12))}%`;
+      if (typeof z === 'string' && percent.isPercent(z)) return `${Number((v * 100).toPrecision(12))}%`;
       return v;
     }
     case 's':
     case 'str':
-      return typeof v === 'string' ? (v === '' ? null : v) : text;
+      return typeof v === 'string' ? (v === '' ? null : v) : textOf(raw);
     case 'b':
-      return v === true ? 'TRUE' : v === false ? 'FALSE' : text;
+      return v === true ? 'TRUE' : v === false ? 'FALSE' : textOf(raw);
     case 'e':
-      return text ?? '#ERROR';
+      return textOf(raw) ?? '#ERROR';
     case 'd':
-      return text ?? (v instanceof Date ? v.toISOString() : null);
+      return textOf(raw) ?? (v instanceof Date ? v.toISOString() : null);
     default:
       return null;
   }
 }
 
+/** The formatted text SheetJS gives a cell, when it is a string. */
+function textOf(raw: object): string | null {
+  const w = ownValue(raw, 'w');
+  return typeof w === 'string' ? w : null;
+}
+
 function readText(bytes: Uint8Array, fileName: string, ext: string, override: ReadOverride): ReadResult {
-  const encoding = override.encoding ?? detectEncoding(bytes);
+  let encoding: TextEncoding | undefined = override.encoding;
   let text: string;
   try {
-    text = decodeText(bytes, encoding);
+    // Detection decodes the whole file once; that text is kept rather than decoded again.
+    if (encoding === undefined) ({ encoding, text } = detectAndDecode(bytes));
+    else text = decodeText(bytes, encoding);
   } catch (e) {
-    return fail('bad-encoding', `The file "${fileName}" cannot be read as ${encoding} (${errorText(e)}). Choose another encoding.`);
+    return fail('bad-encoding', `The file "${fileName}" cannot be read as ${encoding ?? 'text'} (${errorText(e)}). Choose another encoding.`);
   }
   if (looksBinary(text)) {
     return fail('wrong-file-type', `The file "${fileName}" does not hold text, so it is not a .${ext} table (it may be damaged or renamed). Choose a ${SUPPORTED} file.`);
@@ -239,11 +259,19 @@ function readText(bytes: Uint8Array, fileName: string, ext: string, override: Re
       `Sheet "${sheetName}"${row === undefined ? '' : `, row ${row}`}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`,
     );
   }
+  // papaparse's row arrays are ours: blanks become null in place rather than in a copy.
   const rows: Cell[][] = [];
   for (const src of parsed.data as unknown[]) {
-    const row: Cell[] = [];
-    if (Array.isArray(src)) for (const v of src as unknown[]) row.push(typeof v === 'string' && v !== '' ? v : null);
-    rows.push(row);
+    if (!Array.isArray(src)) {
+      rows.push([]);
+      continue;
+    }
+    const row = src as unknown[];
+    for (let c = 0; c < row.length; c++) {
+      const v = row[c];
+      if (v === '' || typeof v !== 'string') row[c] = null;
+    }
+    rows.push(row as Cell[]);
   }
   const delimiter = parsed.meta.delimiter;
   const format = ext === 'tsv' || ext === 'tab' || (delimiter === '\t' && ext !== 'csv') ? 'tsv' : 'csv';
@@ -288,8 +316,13 @@ function errorText(e: unknown): string {
   return text.length > 120 ? `${text.slice(0, 120)}…` : text;
 }
 
+/**
+ * An own data property only, never one inherited from a (possibly polluted) prototype. SheetJS
+ * builds plain objects by assignment, so an own property is a data property; read directly, as
+ * this runs for every cell.
+ */
 function ownValue(obj: object, key: string): unknown {
-  return Object.getOwnPropertyDescriptor(obj, key)?.value;
+  return Object.prototype.hasOwnProperty.call(obj, key) ? (obj as Record<string, unknown>)[key] : undefined;
 }
 
 function asBuffer(bytes: Uint8Array): Buffer {

@@ -17,20 +17,30 @@ export function isTextEncoding(value: unknown): value is TextEncoding {
 }
 
 export function detectEncoding(bytes: Uint8Array): TextEncoding {
+  return detectAndDecode(bytes).encoding;
+}
+
+/**
+ * `detectEncoding` and `decodeText` in one: the strict UTF-8 check already decodes the whole
+ * file, and its text is the one `decodeText(bytes, 'utf-8')` gives (both drop a leading BOM).
+ */
+export function detectAndDecode(bytes: Uint8Array): { encoding: TextEncoding; text: string } {
   const b0 = bytes[0];
   const b1 = bytes[1];
   const b2 = bytes[2];
-  if (b0 === 0xef && b1 === 0xbb && b2 === 0xbf) return 'utf-8';
-  if (b0 === 0xff && b1 === 0xfe) return 'utf-16le';
-  if (b0 === 0xfe && b1 === 0xff) return 'utf-16be';
+  const decoded = (encoding: TextEncoding): { encoding: TextEncoding; text: string } => ({ encoding, text: decodeText(bytes, encoding) });
+  if (b0 === 0xef && b1 === 0xbb && b2 === 0xbf) return decoded('utf-8');
+  if (b0 === 0xff && b1 === 0xfe) return decoded('utf-16le');
+  if (b0 === 0xfe && b1 === 0xff) return decoded('utf-16be');
   const nul = utf16NulPattern(bytes);
-  if (nul !== null) return nul;
+  if (nul !== null) return decoded(nul);
+  let text: string;
   try {
-    new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-    return 'utf-8';
+    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
   } catch {
-    return 'windows-1252';
+    return decoded('windows-1252');
   }
+  return { encoding: 'utf-8', text };
 }
 
 /** Decode; a leading BOM of the chosen encoding is removed (TextDecoder's default). */

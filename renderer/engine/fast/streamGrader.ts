@@ -2,7 +2,8 @@
  * Grading a gradebook one row at a time, for files too large to hold as Score objects (the CLI on
  * a million rows). The plan is compiled once (compilePlan); each row arrives as typed cells
  * (earned points + state byte per assessment, in a reused buffer) and only its weighted percent,
- * section and label are kept — 8 bytes and two references per student. Adjustments (which need
+ * section and label are kept — 8 bytes, one status byte per category and two references per
+ * student (the statuses give effectiveWeightsOf in the result). Adjustments (which need
  * section means) and rounding run in finish(), over the kept weighted percents, with the same code
  * as the in-memory fast path, so the finals equal gradeCourse's exactly (property-tested).
  *
@@ -12,7 +13,7 @@
  * Memory O(S) numbers + O(A) buffer; time O(S·A).
  */
 import type { Assessment, GradingPlan, Score, Student } from '../model';
-import { COUNTED, compilePlan, earnedPoints, waiverCodes, type CompiledCourse, type CompiledPlan } from './compileCourse';
+import { COUNTED, NOTHING_GRADED, compilePlan, earnedPoints, waiverCodes, type CompiledCourse, type CompiledPlan } from './compileCourse';
 import { categoryPercent, finishGrades, scratchFor, type FastGrades, type Scratch } from './gradeCompiled';
 
 export interface RowBuffer {
@@ -26,8 +27,11 @@ export interface StreamGrader {
   readonly compiled: CompiledPlan;
   /** A buffer to fill for the next row (reused: copy nothing out of it). */
   readonly row: RowBuffer;
-  /** Grade the row now in `row` for this student. */
-  add(student: Student): void;
+  /**
+   * Grade the row now in `row` for this student; true when the student has a weighted percent
+   * (some counted category with weight), false when there will be no final mark.
+   */
+  add(student: Student): boolean;
   /** Adjust, round and letter every student added so far. */
   finish(): { course: CompiledCourse; grades: FastGrades };
 }
@@ -56,6 +60,7 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
   let weighted = new Float64Array(1024);
   let has = new Uint8Array(1024);
   let sectionOf = new Int32Array(1024);
+  let status = new Uint8Array(1024 * C);
   const students: Student[] = [];
   const sections: string[] = [];
   const sectionIndex = new Map<string, number>();
@@ -71,12 +76,15 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
     const s = new Int32Array(size);
     s.set(sectionOf);
     sectionOf = s;
+    const st = new Uint8Array(size * C);
+    st.set(status);
+    status = st;
   }
 
   return {
     compiled,
     row,
-    add(student: Student): void {
+    add(student: Student): boolean {
       const s = students.length;
       if (s === weighted.length) grow();
       students.push(student);
@@ -91,15 +99,20 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
       let num = 0;
       let den = 0;
       for (let c = 0; c < C; c++) {
+        status[s * C + c] = codes[c]!;
         if (codes[c] !== COUNTED) continue;
         const p = categoryPercent(compiled.categories[c]!, row.earned, row.state, 0, compiled.projected, scratch);
-        if (p !== p) continue; // NOTHING_GRADED: the category does not count
+        if (p !== p) {
+          status[s * C + c] = NOTHING_GRADED; // the category does not count
+          continue;
+        }
         const w = compiled.categories[c]!.weight;
         num += w * p;
         den += w;
       }
       has[s] = den > 0 ? 1 : 0;
       weighted[s] = den > 0 ? num / den : Number.NaN;
+      return den > 0;
     },
     finish() {
       const S = students.length;
@@ -115,7 +128,7 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
       };
       const grades: FastGrades = {
         catPercent: new Float64Array(0),
-        catStatus: new Uint8Array(0),
+        catStatus: status.subarray(0, S * C),
         weighted: weighted.subarray(0, S),
         hasWeighted: has.subarray(0, S),
         adjusted: new Float64Array(S),

@@ -50,15 +50,134 @@ export function parseScore(
   possible: number,
   tokens: ScoreTokens,
 ): ParseScoreResult {
+  return readCell(cell, possible, tokens, null, true);
+}
+
+/** `parseScore` with the token lists fixed: what an import calls once per cell. */
+export type ScoreReader = (cell: string | number | null | undefined, possible: number) => ParseScoreResult;
+
+/**
+ * A `parseScore` for many cells with the same tokens: the token lists are looked up in a table
+ * built here once (they are read now; a later change to them is not seen), instead of being
+ * trimmed and lower-cased again for every cell. Same results as `parseScore`.
+ *
+ * A column holds few distinct values (17, 17.5, EX …), so results that do not depend on
+ * `possible` (numbers, and text without "%" or "/") are remembered, up to MEMO_LIMIT of them, and
+ * handed out again: they are frozen and shared, as every Score is read-only. Plain decimal text
+ * ("17", "7.5") is recognised by its digits and looked up by their value, without hashing the text.
+ */
+export function scoreReader(tokens: ScoreTokens): ScoreReader {
+  const table = tokenTable(tokens);
+  const memo = new Map<string | number, ParseScoreResult>();
+  // Indexed by plainDigitsCode: a dense array for values below 1000 (every usual score), a Map above.
+  const smallDigits: (ParseScoreResult | undefined)[] = new Array<ParseScoreResult | undefined>(SMALL_CODES).fill(undefined);
+  const byDigits = new Map<number, ParseScoreResult>();
+  // A token spelled like a number ("0" for missing) must win over the number: no shortcut then.
+  let digitsShortcut = true;
+  for (const key of table.keys()) if (plainDecimal(key) !== null) digitsShortcut = false;
+  const blank = frozen(readCell('', 1, tokens, table, true));
+  return (cell, possible) => {
+    if (cell === null || cell === undefined || cell === '') return blank;
+    if (digitsShortcut && typeof cell === 'string') {
+      const code = plainDigitsCode(cell);
+      if (code >= 0 && code < SMALL_CODES) {
+        const known = smallDigits[code];
+        if (known !== undefined) return known;
+        const result = frozen(readCell(cell, possible, tokens, table, true));
+        smallDigits[code] = result;
+        return result;
+      }
+      if (code >= 0) {
+        const known = byDigits.get(code);
+        if (known !== undefined) return known;
+        const result = frozen(readCell(cell, possible, tokens, table, true));
+        if (byDigits.size < MEMO_LIMIT) byDigits.set(code, result);
+        return result;
+      }
+    }
+    const known = memo.get(cell);
+    if (known !== undefined) return known;
+    const result = readCell(cell, possible, tokens, table, true);
+    if (memo.size >= MEMO_LIMIT || (typeof cell === 'string' && (cell.includes('%') || cell.includes('/')))) return result;
+    const shared = frozen(result);
+    memo.set(cell, shared);
+    return shared;
+  };
+}
+
+const MEMO_LIMIT = 4096;
+/** plainDigitsCode values of 0 … 999.99. */
+const SMALL_CODES = 100_000;
+
+/**
+ * Plain decimal text with at most 5 integer digits and 2 decimals ("17", "07.5", "99999.99") → a
+ * code that is equal for two texts exactly when they have the same value ("7.5" and "07.50"), and
+ * so the same parse: units × 100 + hundredths, with units < 100 000. Any other text → -1.
+ */
+function plainDigitsCode(text: string): number {
+  const n = text.length;
+  let units = 0;
+  let i = 0;
+  for (; i < n; i++) {
+    const d = text.charCodeAt(i) - 48;
+    if (d < 0 || d > 9) break;
+    units = units * 10 + d;
+  }
+  if (i === 0 || units >= 100_000) return -1;
+  let hundredths = 0;
+  if (i < n) {
+    const dot = i;
+    if (text.charCodeAt(dot) !== 46 /* . */ || n - dot - 1 < 1 || n - dot - 1 > 2) return -1;
+    for (i++; i < n; i++) {
+      const d = text.charCodeAt(i) - 48;
+      if (d < 0 || d > 9) return -1;
+      hundredths = hundredths * 10 + d;
+    }
+    if (n - dot === 2) hundredths *= 10; // one decimal written: tenths
+  }
+  return units * 100 + hundredths;
+}
+
+function frozen(result: ParseScoreResult): ParseScoreResult {
+  return result.ok ? Object.freeze({ ok: true, score: Object.freeze(result.score) }) : Object.freeze(result);
+}
+
+/**
+ * The grammar alone, without the plain-number shortcut: the reference the shortcut is
+ * property-tested against (tests/engine/grading/parseScoreFast.test.ts). Same results as `parseScore`.
+ */
+export function parseScoreByGrammar(
+  cell: string | number | null | undefined,
+  possible: number,
+  tokens: ScoreTokens,
+): ParseScoreResult {
+  return readCell(cell, possible, tokens, null, false);
+}
+
+type TokenState = 'excused' | 'missing' | 'pending';
+type TokenTable = ReadonlyMap<string, TokenState>;
+
+function readCell(
+  cell: string | number | null | undefined,
+  possible: number,
+  tokens: ScoreTokens,
+  table: TokenTable | null,
+  shortcut: boolean,
+): ParseScoreResult {
   if (typeof cell === 'number') {
     if (!Number.isFinite(cell)) return fail(String(cell), 'is not a finite number', tokens);
     if (cell < 0) return fail(String(cell), 'is negative; scores cannot be below 0', tokens);
     return earned(cell);
   }
   const text = (cell ?? '').trim();
-  const state = tokenState(text, tokens);
+  const key = text.toLowerCase();
+  const state = table === null ? tokenState(key, tokens) : (table.get(key) ?? null);
   if (state !== null) return { ok: true, score: { kind: state } };
   if (text === '') return { ok: true, score: { kind: 'missing' } };
+  if (shortcut) {
+    const plain = plainDecimal(text);
+    if (plain !== null) return earned(plain);
+  }
 
   if (text.endsWith('%')) {
     const value = parseDecimal(text.slice(0, -1).trim());
@@ -82,6 +201,31 @@ export function parseScore(
   const value = parseDecimal(text);
   if (!value.ok) return fail(text, value.why, tokens);
   return earned(value.value);
+}
+
+/**
+ * The shortcut for the common cell: digits, optionally one `.` and more digits ("17", "7.5").
+ * The grammar reads such text as Number(`${int}.${frac || '0'}`), the same decimal value as
+ * Number(text); anything else (commas, spaces, signs, "5.", ".5", too large) is left to it.
+ */
+function plainDecimal(text: string): number | null {
+  const n = text.length;
+  let i = 0;
+  while (i < n && isDigit(text.charCodeAt(i))) i++;
+  if (i === 0) return null;
+  if (i < n) {
+    if (text.charCodeAt(i) !== 46 /* . */) return null;
+    i++;
+    const fracStart = i;
+    while (i < n && isDigit(text.charCodeAt(i))) i++;
+    if (i !== n || i === fracStart) return null;
+  }
+  const value = Number(text);
+  return Number.isFinite(value) ? value : null;
+}
+
+function isDigit(code: number): boolean {
+  return code >= 48 && code <= 57;
 }
 
 /** Display/export form: the number as typed, or the first token of the state (canonical word if none). */
@@ -108,13 +252,32 @@ export function acceptedForms(tokens: ScoreTokens): string {
   );
 }
 
-function tokenState(text: string, tokens: ScoreTokens): 'excused' | 'missing' | 'pending' | null {
-  const key = text.toLowerCase();
-  const has = (words: readonly string[]): boolean => words.some((w) => w.trim().toLowerCase() === key);
-  if (has(tokens.excused)) return 'excused';
-  if (has(tokens.missing)) return 'missing';
-  if (has(tokens.pending)) return 'pending';
+/** `key` is the cell text trimmed and lower-cased; the first list holding it wins. */
+function tokenState(key: string, tokens: ScoreTokens): TokenState | null {
+  if (listHas(tokens.excused, key)) return 'excused';
+  if (listHas(tokens.missing, key)) return 'missing';
+  if (listHas(tokens.pending, key)) return 'pending';
   return null;
+}
+
+function listHas(words: readonly string[], key: string): boolean {
+  for (const w of words) if (w.trim().toLowerCase() === key) return true;
+  return false;
+}
+
+/** The same decision as `tokenState`, as a table: first list (excused, missing, pending) wins. */
+function tokenTable(tokens: ScoreTokens): TokenTable {
+  const table = new Map<string, TokenState>();
+  const add = (words: readonly string[], state: TokenState): void => {
+    for (const w of words) {
+      const key = w.trim().toLowerCase();
+      if (!table.has(key)) table.set(key, state);
+    }
+  };
+  add(tokens.excused, 'excused');
+  add(tokens.missing, 'missing');
+  add(tokens.pending, 'pending');
+  return table;
 }
 
 function earned(points: number): ParseScoreResult {
