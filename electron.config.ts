@@ -17,6 +17,8 @@ const config: Configuration = {
   files: ['dist/**', 'demo-data/**', 'package.json', '!**/*.map'],
   extraMetadata: { main: 'dist/main/shell.cjs' },
   asar: true,
+  // worker_threads start the import worker from a real file, so it lives beside the archive.
+  asarUnpack: ['dist/main/importWorker.mjs'],
   // Everything is bundled by esbuild/Vite; there are no native modules to rebuild.
   npmRebuild: false,
   // Releases are never uploaded from a build.

@@ -22,6 +22,8 @@ const entries = [
   { in: 'main/preload.ts', out: 'dist/main/preload.cjs', format: 'cjs' },
   { in: 'main/cli.ts', out: 'dist/main/cli.mjs', format: 'esm', banner: { js: '#!/usr/bin/env node\n' + esmRequireBanner.js } },
   { in: 'main/harness/server.ts', out: 'dist/main/harness.mjs', format: 'esm', banner: esmRequireBanner },
+  // The spreadsheet parser runs in this worker (main/services/untrusted), found beside the bundles.
+  { in: 'main/services/untrusted/worker.ts', out: 'dist/main/importWorker.mjs', format: 'esm', banner: esmRequireBanner },
 ];
 
 for (const e of entries) {
@@ -29,5 +31,13 @@ for (const e of entries) {
     console.warn(`build-main: ${e.in} does not exist yet; skipped`);
     continue;
   }
-  await build({ ...common, entryPoints: [e.in], outfile: e.out, format: e.format, banner: e.banner });
+  await build({
+    ...common,
+    entryPoints: [e.in],
+    outfile: e.out,
+    format: e.format,
+    banner: e.banner,
+    // CommonJS bundles take their own path from __filename first; import.meta is only the ESM fallback.
+    logOverride: e.format === 'cjs' ? { 'empty-import-meta': 'silent' } : {},
+  });
 }

@@ -16,6 +16,7 @@ import type {
   WorkbookPreview,
 } from '../../renderer/bridge/contract';
 import type { Gradebook } from '../../renderer/engine/model';
+import type { ImportLimits } from '../services/untrusted';
 import type { BridgeHandlers } from './dispatch';
 import { failure } from './dispatch';
 
@@ -32,6 +33,14 @@ export interface BridgeDeps {
   readonly dialogs: BridgeDialogs | null;
   /** Where demo-data/ lives (the app's root); the demo service's default when absent. */
   readonly appRoot?: string;
+  /**
+   * Parse spreadsheets in a worker thread (main/services/untrusted) rather than in this process.
+   * The Electron shell sets it; the browser harness, whose server holds nothing but the course,
+   * reads directly.
+   */
+  readonly isolateImports?: boolean;
+  /** Size, time and heap limits for isolated reading; the defaults of main/services/untrusted when absent. */
+  readonly importLimits?: Partial<ImportLimits>;
   /** Called after the recent-files list changed, e.g. to rebuild the native "Open recent" menu. */
   readonly onRecentFilesChanged?: (paths: readonly string[]) => void;
 }

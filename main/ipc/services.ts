@@ -1,5 +1,5 @@
 /**
- * Binds the bridge to the real `main/services`: the spreadsheet reader, the project store, the
+ * Binds the bridge to the real `main/services`: the spreadsheet reader (isolated), the project store, the
  * export writer, the recovery copy and recent-files list (both kept in `userDataDir`) and the
  * demo course. This is the only file of main/ipc that imports the services themselves.
  */
@@ -8,16 +8,24 @@ import { loadDemoCourse } from '../services/demo';
 import { writeExport } from '../services/export';
 import { loadProject, saveProject } from '../services/project';
 import { importSpreadsheet, previewMerge, previewSpreadsheet } from '../services/spreadsheet';
+import { importSpreadsheetIsolated, previewMergeIsolated, previewSpreadsheetIsolated } from '../services/untrusted';
 import type { BridgeHandlers } from './dispatch';
 import { createHandlersFrom, type BridgeDeps, type BridgeServices } from './handlers';
 
 export function nodeServices(deps: BridgeDeps): BridgeServices {
   const recovery = createRecoveryStore(deps.userDataDir);
   const recent = createRecentFiles(deps.userDataDir);
+  const limits = deps.importLimits;
   return {
-    previewSpreadsheet,
-    importSpreadsheet,
-    previewMerge,
+    ...(deps.isolateImports === true
+      ? {
+          // Untrusted files are parsed in a worker thread with size, time and heap limits, never in
+          // the process that holds the window and the user's other files.
+          previewSpreadsheet: (path, override) => previewSpreadsheetIsolated(path, { limits, override }),
+          importSpreadsheet: (path, layout) => importSpreadsheetIsolated(path, layout, { limits }),
+          previewMerge: (current, path, layout) => previewMergeIsolated(current, path, layout, { limits }),
+        }
+      : { previewSpreadsheet, importSpreadsheet, previewMerge }),
     loadProject: (path) => loadProject(path),
     saveProject: (path, project) => saveProject(path, project),
     // dispatchBridgeCall has validated the request against exportRequestSchema already.

@@ -64,6 +64,8 @@ const handlers = createBridgeHandlers({
   userDataDir: app.getPath('userData'),
   dialogs: nativeDialogs(),
   appRoot: app.getAppPath(),
+  // Spreadsheets are untrusted input: parse them in a worker with size, time and heap limits.
+  isolateImports: true,
   onRecentFilesChanged: (recent) => buildMenu(recent),
 });
 

@@ -237,17 +237,17 @@ describe('time limit', () => {
 });
 
 describe('memory limit', () => {
-  it('a decompression bomb (a 3 M-cell sheet deflated to a small file) exhausts the worker, not the app: too-large', async () => {
+  it('a decompression bomb (a 1.5 M-cell sheet deflated to a small file) exhausts the worker, not the app: too-large', async () => {
     const base = book({ S: [['ID', 'Score'], ['a', 1]] });
     const row = `<row>${'<c><v>1</v></c>'.repeat(1000)}</row>`;
-    const bomb = rewriteZip(base, { 'xl/worksheets/sheet1.xml': (xml) => xml.replace(/<sheetData>.*<\/sheetData>/s, `<sheetData>${row.repeat(3000)}</sheetData>`) }, true);
+    const bomb = rewriteZip(base, { 'xl/worksheets/sheet1.xml': (xml) => xml.replace(/<sheetData>.*<\/sheetData>/s, `<sheetData>${row.repeat(1500)}</sheetData>`) }, true);
     const path = file('bomb.xlsx', bomb);
     expect(bomb.length).toBeLessThan(DEFAULT_IMPORT_LIMITS.maxBytes / 10);
     const before = sha(path);
-    const r = await previewSpreadsheetIsolated(path, { limits: { maxHeapMb: 64, maxMillis: 120_000 } });
+    const r = await previewSpreadsheetIsolated(path, { limits: { maxHeapMb: 48, maxMillis: 120_000 } });
     expect(r).toMatchObject({ ok: false, code: 'too-large' });
     expect(!r.ok && r.message).toBe(
-      'Reading "bomb.xlsx" needed more than 64 MB of memory and was stopped. The file may be damaged or expand to far more data than its size suggests (a compressed workbook can); if it is the right file, raise the memory limit in the import limits and try again.',
+      'Reading "bomb.xlsx" needed more than 48 MB of memory and was stopped. The file may be damaged or expand to far more data than its size suggests (a compressed workbook can); if it is the right file, raise the memory limit in the import limits and try again.',
     );
     expect(sha(path)).toBe(before);
     // This process is alive and its own prototypes are untouched.
