@@ -9,18 +9,10 @@
  */
 import type { Assessment, Category, Gradebook, GradingPlan, ItemRule, Score, Student } from '../renderer/engine/model';
 import { DEFAULT_SCALE } from '../renderer/engine/grading/gradeScale';
+import { mulberry32 } from '../demo-data/generate';
 
-/** Mulberry32, a 32-bit seeded generator (Tommy Ettinger, public domain): fast and reproducible. */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The demo generator's seeded PRNG (Mulberry32), shared so there is one copy. */
+export const seeded = mulberry32;
 
 export interface CourseSize {
   readonly students: number;

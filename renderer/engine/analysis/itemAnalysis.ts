@@ -21,9 +21,14 @@
  * - all full marks: every scored student earned the full points; the item separates no one.
  * - very hard: mean below 30 % (classical difficulty p < 0.30; common practice, no source).
  *
- * Cost: one regrade per assessment, O(A·S) item work for A assessments and S students.
+ * Cost: the course is compiled and graded once on the fast path (fast/, property-tested identical
+ * to gradeCourse); each rest mark then recomputes only the category that held the item
+ * (fast/weightedWithout.ts, property-tested identical to gradeCourse with planWithout), so the
+ * whole analysis is O(S·(C·A + Σ items per category)) rather than one full regrade per assessment.
  */
-import { gradeCourse } from '../grading/gradeCourse';
+import { compileCourse } from '../fast/compileCourse';
+import { gradeCompiled } from '../fast/gradeCompiled';
+import { planWithout, weightedWithout } from '../fast/weightedWithout';
 import type { Gradebook, GradingPlan } from '../model';
 import type { Defined } from '../defined';
 import { mean } from '../stats/mean';
@@ -64,12 +69,8 @@ export interface ItemAnalysis {
   readonly flags: readonly ItemFlag[];
 }
 
-/** The plan with one assessment taken out of grading (everything else unchanged). */
-export function planWithout(plan: GradingPlan, assessmentId: string): GradingPlan {
-  const rule = plan.items[assessmentId];
-  if (rule === undefined || rule.categoryId === null) return plan;
-  return { ...plan, items: { ...plan.items, [assessmentId]: { ...rule, categoryId: null } } };
-}
+// The plan with one assessment taken out of grading; defined beside its fast use.
+export { planWithout };
 
 function flagsFor(a: { possible: number }, percents: readonly number[], m: Defined<number>, r: Defined<number>): ItemFlag[] {
   const flags: ItemFlag[] = [];
@@ -93,10 +94,12 @@ function flagsFor(a: { possible: number }, percents: readonly number[], m: Defin
  * itemAnalysis(book, plan)[0].discrimination; // => { defined: true, value: 0.41 } (say)
  */
 export function itemAnalysis(book: Gradebook, plan: GradingPlan): ItemAnalysis[] {
-  const full = gradeCourse(book, plan).students;
+  const course = compileCourse(book, plan);
+  const grades = gradeCompiled(course);
+  const full = grades;
   return book.assessments.map((a, ai) => {
     const rule = plan.items[a.id];
-    const rest = planWithout(plan, a.id) === plan ? full : gradeCourse(book, planWithout(plan, a.id)).students;
+    const rest = planWithout(plan, a.id) === plan ? full : weightedWithout(course, grades, book.assessments, a.id);
     let missing = 0;
     let excused = 0;
     let pending = 0;
@@ -113,15 +116,13 @@ export function itemAnalysis(book: Gradebook, plan: GradingPlan): ItemAnalysis[]
       else {
         const p = (cell.points * 100) / a.possible; // multiply first: 7 of 100 gives exactly 7
         percents.push(p);
-        const restMark = rest[si]?.weighted ?? null;
-        if (restMark !== null) {
+        if (rest.hasWeighted[si] === 1) {
           x.push(p);
-          y.push(restMark);
+          y.push(rest.weighted[si]!);
         }
-        const fullMark = full[si]?.weighted ?? null;
-        if (fullMark !== null) {
+        if (full.hasWeighted[si] === 1) {
           xFull.push(p);
-          yFull.push(fullMark);
+          yFull.push(full.weighted[si]!);
         }
       }
     });

@@ -38,3 +38,5 @@ export { dropForTotalPointsFast, dropLowestPercentsFast, dropScratch } from './d
 export type { DropScratch } from './dropLowestFast';
 export { createStreamGrader, fillRow } from './streamGrader';
 export type { RowBuffer, StreamGrader } from './streamGrader';
+export { planWithout, weightedWithout } from './weightedWithout';
+export type { WeightedPercents } from './weightedWithout';

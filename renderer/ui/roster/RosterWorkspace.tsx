@@ -12,6 +12,7 @@
 import { useCallback, useDeferredValue, useId, useMemo, useState } from 'react';
 import { useCourseStore } from '../../state/courseStore';
 import { DEFAULT_TOKENS } from '../../engine/grading/parseScore';
+import type { Score } from '../../engine/model';
 import { itemStatusesFor, studentResultMap } from '../results/resultsAccess';
 import { RosterGrid } from './RosterGrid';
 import './roster.css';
@@ -43,7 +44,24 @@ export function RosterWorkspace() {
   }, [gradebook, section, deferredSearch]);
 
   const byId = useMemo(() => studentResultMap(results), [results]);
-  const statusesFor = useCallback((studentId: string) => itemStatusesFor(byId.get(studentId)), [byId]);
+  // Each visible row's item statuses are built once per grading and then reused on every scroll
+  // render (rows re-enter the view often); never for rows that are not shown.
+  const statusesFor = useMemo(() => {
+    const cache = new Map<string, ReturnType<typeof itemStatusesFor>>();
+    return (studentId: string) => {
+      let statuses = cache.get(studentId);
+      if (statuses === undefined) {
+        statuses = itemStatusesFor(byId.get(studentId));
+        cache.set(studentId, statuses);
+      }
+      return statuses;
+    };
+  }, [byId]);
+  const finalFor = useCallback((studentId: string) => byId.get(studentId)?.final ?? null, [byId]);
+  const onSetScore = useCallback(
+    (studentIndex: number, assessmentIndex: number, score: Score) => apply({ kind: 'setScore', studentIndex, assessmentIndex, score }),
+    [apply],
+  );
 
   const tokens = project?.source?.layout.tokens ?? DEFAULT_TOKENS;
 
@@ -89,9 +107,9 @@ export function RosterWorkspace() {
         gradebook={gradebook}
         rows={rows}
         tokens={tokens}
-        finalFor={(studentId) => byId.get(studentId)?.final ?? null}
+        finalFor={finalFor}
         statusesFor={statusesFor}
-        onSetScore={(studentIndex, assessmentIndex, score) => apply({ kind: 'setScore', studentIndex, assessmentIndex, score })}
+        onSetScore={onSetScore}
       />
     </section>
   );
