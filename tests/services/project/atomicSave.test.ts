@@ -1,7 +1,7 @@
 /**
  * Crash safety of project saves, tested for real: a child process saves two known versions in a
- * loop and is killed with SIGKILL at a random moment — 52 times in the normal suite (4 lanes × 13,
- * each lane its own folder; each child costs ~0.2 s of start-up on this machine, so 100 kills took
+ * loop and is killed with SIGKILL at a random moment — 100 times in the normal suite (4 lanes × 25,
+ * each lane its own folder; each child costs ~0.2 s of start-up on this machine, so 100 kills take
  * ~16 s). Set WEIGHBRIDGE_CRASH_KILLS (e.g. 1000) for a long run. After every kill the project
  * file must be byte-identical to one of the two versions
  * (never torn) and the kept backup must be one of them too.
@@ -17,7 +17,7 @@ import { parseProjectText, saveProject, serialiseProject } from '../../../main/s
 import { crashVersions } from './crashVersions';
 
 const LANES = 4;
-const KILLS_PER_LANE = Math.ceil(Number(process.env['WEIGHBRIDGE_CRASH_KILLS'] ?? 52) / LANES);
+const KILLS_PER_LANE = Math.ceil(Number(process.env['WEIGHBRIDGE_CRASH_KILLS'] ?? 100) / LANES);
 
 let work: string;
 let childJs: string;
