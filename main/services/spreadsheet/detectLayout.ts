@@ -26,6 +26,10 @@ import { problemAt } from './problems';
 import { cellText, isBlank, type Cell, type RawBook, type RawSheet } from './readBook';
 
 const HEADER_SEARCH_ROWS = 30;
+/** XFD, the last column a workbook can have (ECMA-376 Part 1 §18.3.1.4 `c@r`; Excel's limit). The import refuses an index past it. */
+export const MAX_COLUMNS = 16_384;
+/** Column warnings of one kind shown per sheet before the rest are counted in one summary. */
+const COLUMN_WARNINGS_SHOWN = 10;
 const CONTENT_SAMPLE_ROWS = 200;
 const NO_TOKENS: ScoreTokens = { excused: [], missing: [], pending: [] };
 
@@ -72,7 +76,8 @@ export function detectLayout(book: RawBook, tokens: ScoreTokens): Detection {
   if (nonEmpty.length === 0) {
     problems.push({ severity: 'error', code: 'empty-file', message: 'The file has no cells with data in any sheet. Choose the gradebook file that holds the scores.' });
   }
-  for (const g of chosen) problems.push(...g.problems);
+  // One push per problem: spreading a huge array into push() exceeds V8's argument limit.
+  for (const g of chosen) for (const p of g.problems) problems.push(p);
   const sheetName = chosen.length >= 2 && !chosen.some((g) => g.hasSection);
   const layout: ImportLayout = {
     sheets: chosen.map((g) => g.layout),
@@ -102,16 +107,18 @@ function guessSheet(sheet: RawSheet, tokens: ScoreTokens): SheetGuess | null {
   const headerRow = findHeaderRow(sheet);
   if (headerRow === null) return null;
   const header = sheet.rows[headerRow] ?? [];
+  const width = Math.min(sheet.width, MAX_COLUMNS);
   const roles: (ColumnRole | null)[] = [];
-  for (let c = 0; c < sheet.width; c++) roles.push(isBlank(header[c]) ? null : roleFromHeader(cellText(header[c]).trim()));
+  for (let c = 0; c < width; c++) roles.push(isBlank(header[c]) ? null : roleFromHeader(cellText(header[c]).trim()));
   keepFirstOfEachRole(roles);
 
   const possibleRow = findPossibleRow(sheet, headerRow, roles);
   const firstData = Math.max(headerRow, possibleRow ?? -1) + 1;
   const problems: ImportProblem[] = [];
+  const warnings = new ColumnWarnings(problems);
   const columns: ColumnLayout[] = [];
-  const used = columnsWithData(sheet, headerRow);
-  for (let c = 0; c < sheet.width; c++) {
+  const used = columnsWithData(sheet, headerRow, width);
+  for (let c = 0; c < width; c++) {
     const text = cellText(header[c]).trim();
     let role = roles[c] ?? null;
     // A filled cell in the points-possible row wins over the header; a bad one is left for the
@@ -123,18 +130,18 @@ function guessSheet(sheet: RawSheet, tokens: ScoreTokens): SheetGuess | null {
       const at = { sheet: sheet.name, row: headerRow + 1, column: columnLetter(c), header: text };
       if (text === '') {
         if (content !== 'blank') {
-          problems.push(problemAt('warning', 'unnamed-column', at, 'this column has no header, so it is ignored. Give it a header, or mark it as an assessment in the preview.'));
+          warnings.add(problemAt('warning', 'unnamed-column', at, 'this column has no header, so it is ignored. Give it a header, or mark it as an assessment in the preview.'));
         }
         role = 'ignore';
       } else if (content === 'scores' || (possible !== undefined && (content === 'tokens' || content === 'some-scores'))) {
         role = 'assessment';
       } else if (content === 'blank' && possible !== undefined) {
         role = 'assessment';
-        if (hasRowsFrom(sheet, firstData)) problems.push(
+        if (hasRowsFrom(sheet, firstData)) warnings.add(
           problemAt('warning', 'no-scores-yet', at, 'this assessment has no scores yet, so every student reads as missing. Mark it as ignored in the preview if it is not yet due.'),
         );
       } else {
-        problems.push(
+        warnings.add(
           problemAt(
             'warning',
             'unrecognised-column',
@@ -150,6 +157,17 @@ function guessSheet(sheet: RawSheet, tokens: ScoreTokens): SheetGuess | null {
     if (text === '' && role === 'ignore' && used[c] !== true) continue;
     columns.push({ index: c, header: text, role, ...(role === 'assessment' && possible !== undefined ? { possible } : {}) });
   }
+  warnings.summarise(sheet.name, headerRow + 1);
+  if (sheet.width > MAX_COLUMNS && hasCellsBeyond(sheet, MAX_COLUMNS)) {
+    problems.push(
+      problemAt(
+        'warning',
+        'too-many-columns',
+        { sheet: sheet.name },
+        `cells to the right of column XFD (column ${MAX_COLUMNS}, the last a workbook can have) were ignored. Move any scores there into columns A to XFD and import again.`,
+      ),
+    );
+  }
   const hasId = columns.some((col) => col.role === 'id');
   const hasAssessment = columns.some((col) => col.role === 'assessment');
   return {
@@ -159,6 +177,49 @@ function guessSheet(sheet: RawSheet, tokens: ScoreTokens): SheetGuess | null {
     hasSection: columns.some((col) => col.role === 'section'),
     problems,
   };
+}
+
+/**
+ * Keeps the first few column warnings of each kind and counts the rest: a sheet of a million
+ * unnamed columns must not make a million warnings no one reads.
+ */
+class ColumnWarnings {
+  private readonly extra = new Map<string, number>();
+  private readonly shown = new Map<string, number>();
+  constructor(private readonly problems: ImportProblem[]) {}
+
+  add(problem: ImportProblem): void {
+    const n = this.shown.get(problem.code) ?? 0;
+    if (n < COLUMN_WARNINGS_SHOWN) {
+      this.shown.set(problem.code, n + 1);
+      this.problems.push(problem);
+    } else {
+      this.extra.set(problem.code, (this.extra.get(problem.code) ?? 0) + 1);
+    }
+  }
+
+  summarise(sheet: string, headerRow: number): void {
+    for (const [code, n] of this.extra) {
+      const one = n === 1;
+      const what =
+        code === 'unnamed-column'
+          ? one ? 'column without a header was ignored' : 'columns without a header were ignored'
+          : code === 'no-scores-yet'
+            ? one ? 'assessment has no scores yet' : 'assessments have no scores yet'
+            : one ? 'column was ignored the same way' : 'columns were ignored the same way';
+      this.problems.push(
+        problemAt('warning', code, { sheet, row: headerRow }, `… and ${n} more ${what}. Check their roles in the preview if any of them matter.`),
+      );
+    }
+  }
+}
+
+/** Whether any row holds a non-blank cell at or past column `from` (0-based). */
+function hasCellsBeyond(sheet: RawSheet, from: number): boolean {
+  for (const row of sheet.rows) {
+    for (let c = from; c < row.length; c++) if (!isBlank(row[c])) return true;
+  }
+  return false;
 }
 
 /** Two columns claiming one role (two "Name" columns): the first keeps it, the rest decide by content. */
@@ -246,12 +307,13 @@ function hasRowsFrom(sheet: RawSheet, from: number): boolean {
 }
 
 /** One pass over the sheet: which columns hold anything from `from` down. */
-function columnsWithData(sheet: RawSheet, from: number): boolean[] {
-  const used: boolean[] = new Array<boolean>(sheet.width).fill(false);
+function columnsWithData(sheet: RawSheet, from: number, width: number): boolean[] {
+  const used: boolean[] = new Array<boolean>(width).fill(false);
   const blank = isBlank; // one binding read, not one per cell (module getters under tsx)
   for (let r = from; r < sheet.rows.length; r++) {
     const row = sheet.rows[r] ?? [];
-    for (let c = 0; c < row.length; c++) if (!used[c] && !blank(row[c])) used[c] = true;
+    const end = Math.min(row.length, width);
+    for (let c = 0; c < end; c++) if (!used[c] && !blank(row[c])) used[c] = true;
   }
   return used;
 }

@@ -10,11 +10,41 @@
  * Nothing SheetJS returns is trusted as an object: sheets are looked up by own property only, and
  * every cell becomes a string, a finite number or null in arrays this module builds itself.
  */
+import * as zlib from 'node:zlib';
 import Papa from 'papaparse';
 import * as XLSX from 'xlsx';
 import type { ImportProblem, TextEncoding, WorkbookPreview } from '../../../renderer/bridge/contract';
 import { fileProblem, problemAt } from './problems';
 import { decodeText, detectAndDecode } from './textEncoding';
+import { declaredUnzippedBytes } from './zipCheck';
+
+/**
+ * The most a workbook may unpack to, declared or real. SheetJS allocates an entry's declared size
+ * up front, and native inflate's output is otherwise unbounded; a gradebook is a few megabytes.
+ */
+const MAX_UNZIPPED_BYTES = 512 * 1024 * 1024;
+
+/**
+ * Node's zlib for SheetJS's ZIP entries, with an output bound. The ESM build of SheetJS otherwise
+ * inflates in pure JS, which loops forever on a cut deflate stream (it never checks its bit offset
+ * against the input length) and writes into Buffer.allocUnsafe memory of the declared size, so a
+ * stream that ends early leaves stale memory — another file's text — to be parsed as sheet XML.
+ * Native inflate fails fast on a cut stream and returns only the bytes it produced.
+ */
+class BoundedInflateRaw extends zlib.InflateRaw {
+  constructor() {
+    super({ maxOutputLength: MAX_UNZIPPED_BYTES });
+  }
+}
+// SheetJS reads `bytesRead` (how much input the stream consumed); Node deprecates that name in
+// favour of `bytesWritten` (DEP0108) and warns on first use, so answer it without the warning.
+Object.defineProperty(BoundedInflateRaw.prototype, 'bytesRead', {
+  get(this: zlib.InflateRaw): number {
+    return this.bytesWritten;
+  },
+  configurable: true,
+});
+(XLSX.CFB as unknown as { utils: { use_zlib(z: unknown): void } }).utils.use_zlib({ ...zlib, InflateRaw: BoundedInflateRaw });
 
 /** One cell as read: text, a number (only from a numeric workbook cell), or blank. */
 export type Cell = string | number | null;
@@ -74,7 +104,14 @@ function readZip(bytes: Uint8Array, fileName: string): ReadResult {
   // The end-of-central-directory record (PK 05 06) sits in the last 22 + 65 535 bytes (APPNOTE.TXT
   // §4.3.16); without it the archive was cut short.
   if (buf.lastIndexOf(Buffer.from([0x50, 0x4b, 0x05, 0x06])) < Math.max(0, buf.length - 65557)) {
-    return corrupt(fileName, new Error('the ZIP archive has no central directory'));
+    return corrupt(fileName);
+  }
+  const declared = declaredUnzippedBytes(buf);
+  if (declared !== null && declared > MAX_UNZIPPED_BYTES) {
+    return fail(
+      'too-large',
+      `The file "${fileName}" says it expands to ${Math.ceil(declared / (1024 * 1024))} MB when unpacked, more than the ${MAX_UNZIPPED_BYTES / (1024 * 1024)} MB a gradebook workbook may hold, so it was not opened. It is probably damaged: ${FIX_SAVE_AGAIN}`,
+    );
   }
   let format: 'xlsx' | 'ods';
   if (buf.indexOf('mimetypeapplication/vnd.oasis.opendocument.spreadsheet', 0, 'latin1') >= 0) format = 'ods';
@@ -92,8 +129,8 @@ function readCompound(bytes: Uint8Array, fileName: string): ReadResult {
   let names: string[];
   try {
     names = compoundStreamNames(buf);
-  } catch (e) {
-    return corrupt(fileName, e);
+  } catch {
+    return corrupt(fileName);
   }
   if (names.includes('EncryptionInfo') || names.includes('EncryptedPackage')) return passwordProtected(fileName);
   if (!names.includes('Workbook') && !names.includes('Book')) {
@@ -135,10 +172,10 @@ function readWorkbook(buf: Buffer, fileName: string, format: 'xlsx' | 'xls' | 'o
     });
   } catch (e) {
     if (/password|encrypt/i.test(errorText(e))) return passwordProtected(fileName);
-    return corrupt(fileName, e);
+    return corrupt(fileName);
   }
   const names: unknown = wb.SheetNames;
-  if (!Array.isArray(names) || names.length === 0) return corrupt(fileName, new Error('no sheets'));
+  if (!Array.isArray(names) || names.length === 0) return corrupt(fileName);
   const sheets: RawSheet[] = [];
   const problems: ImportProblem[] = [];
   const seen = new Set<string>();
@@ -303,8 +340,12 @@ function passwordProtected(fileName: string): ReadResult {
   );
 }
 
-function corrupt(fileName: string, e: unknown): ReadResult {
-  return fail('corrupt-file', `The file "${fileName}" could not be read: it looks damaged or incomplete (${errorText(e)}). ${FIX_SAVE_AGAIN}`);
+/**
+ * A fixed sentence: the library's exception text ("Cannot read properties of undefined …") reads
+ * to a user as the program breaking, and says nothing they can act on.
+ */
+function corrupt(fileName: string): ReadResult {
+  return fail('corrupt-file', `The file "${fileName}" could not be read: it looks damaged or incomplete (its parts could not be unpacked and read as a workbook). ${FIX_SAVE_AGAIN}`);
 }
 
 function fail(code: string, message: string): ReadResult {

@@ -94,8 +94,11 @@ export function readColumnBytes(bytes: Uint8Array, fileName: string, options: Co
     const col = findHeader(header, options.column);
     const byCol = options.by === undefined ? -1 : findHeader(header, options.by);
     if (options.by !== undefined && byCol < 0) {
-      const names = header.filter((c) => !isBlank(c)).map((c) => `"${cellText(c).trim()}"`);
-      return bad(`Sheet "${sheet.name}", row ${headerRow + 1}: there is no column "${options.by}" to group by. Its columns are ${names.join(', ')}.`);
+      // A few names are enough to show what the sheet holds; a wide header would flood the message.
+      const filledHeaders = header.filter((c) => !isBlank(c));
+      const names = filledHeaders.slice(0, 10).map((c) => quote(cellText(c).trim()));
+      const more = filledHeaders.length > names.length ? ` and ${filledHeaders.length - names.length} more` : '';
+      return bad(`Sheet "${sheet.name}", row ${headerRow + 1}: there is no column ${quote(options.by)} to group by. Its columns are ${names.join(', ')}${more}.`);
     }
     const detected = guess !== undefined && guess.headerRow === headerRow ? guess : undefined;
     const idCol = detected?.columns.find((c) => c.role === 'id')?.index ?? -1;
@@ -130,7 +133,7 @@ export function readColumnBytes(bytes: Uint8Array, fileName: string, options: Co
     if (firstProblem !== undefined) {
       const message = problems.length === 1
         ? firstProblem.message
-        : `${problems.length} cells of column ${column.letter} ("${column.header}") are not numbers. The first: ${firstProblem.message}`;
+        : `${problems.length} cells of column ${column.letter} (${quote(column.header)}) are not numbers. The first: ${firstProblem.message}`;
       return { ok: false, code: 'bad-input', message, problems };
     }
     return { ok: true, value: { sheet: sheet.name, headerRow: headerRow + 1, column, by: byCol >= 0 ? place(byCol) : null, values, skipped } };

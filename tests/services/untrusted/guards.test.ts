@@ -9,7 +9,7 @@ import { describe, expect, it } from 'vitest';
 import * as XLSX from 'xlsx';
 import { previewSpreadsheetIsolated } from '../../../main/services/untrusted';
 import { estimateReplyBytes } from '../../../main/services/untrusted/replySize';
-import { declaredUnzippedBytes } from '../../../main/services/untrusted/zipCheck';
+import { declaredUnzippedBytes } from '../../../main/services/spreadsheet/zipCheck';
 import { rawZip, zipEntries } from '../../fuzz/zip';
 
 function course(): Uint8Array {

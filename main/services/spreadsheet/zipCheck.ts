@@ -1,0 +1,53 @@
+/**
+ * What a ZIP archive says its entries will expand to, read from its central directory
+ * (APPNOTE.TXT §4.3.12 central file header, §4.3.16 end of central directory, §4.5.3 Zip64
+ * extra field). SheetJS allocates each entry's declared uncompressed size up front, outside the
+ * V8 heap (a Buffer), so a small file declaring 4 GiB would get 4 GiB however tight the heap
+ * limit: readBook refuses such a file before parsing it, and so does the isolated worker against
+ * its own memory limit (main/services/untrusted imports this module).
+ *
+ * A directory it cannot read returns null and the parser decides (it reports a damaged file in
+ * the user's words).
+ */
+const EOCD = 0x06054b50;
+const CENTRAL = 0x02014b50;
+
+export function declaredUnzippedBytes(bytes: Uint8Array): number | null {
+  if (bytes.length < 22 || bytes[0] !== 0x50 || bytes[1] !== 0x4b) return null;
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  let end = -1;
+  for (let i = bytes.length - 22; i >= Math.max(0, bytes.length - 65_557); i--) {
+    if (view.getUint32(i, true) === EOCD) {
+      end = i;
+      break;
+    }
+  }
+  if (end < 0) return null;
+  const count = view.getUint16(end + 10, true);
+  let at = view.getUint32(end + 16, true);
+  let total = 0;
+  for (let n = 0; n < count; n++) {
+    if (at + 46 > bytes.length || view.getUint32(at, true) !== CENTRAL) return total > 0 ? total : null;
+    let size = view.getUint32(at + 24, true);
+    const nameLen = view.getUint16(at + 28, true);
+    const extraLen = view.getUint16(at + 30, true);
+    const commentLen = view.getUint16(at + 32, true);
+    // 0xFFFFFFFF defers to a Zip64 field when there is one; otherwise it is the size itself.
+    if (size === 0xffffffff) size = zip64Size(view, at + 46 + nameLen, extraLen) ?? size;
+    total += size;
+    at += 46 + nameLen + extraLen + commentLen;
+  }
+  return total;
+}
+
+/** The uncompressed size from a Zip64 extended-information extra field (header id 0x0001). */
+function zip64Size(view: DataView, start: number, length: number): number | null {
+  let p = start;
+  while (p + 4 <= start + length && p + 4 <= view.byteLength) {
+    const id = view.getUint16(p, true);
+    const len = view.getUint16(p + 2, true);
+    if (id === 0x0001 && len >= 8 && p + 12 <= view.byteLength) return Number(view.getBigUint64(p + 4, true));
+    p += 4 + len;
+  }
+  return null;
+}
