@@ -17,7 +17,7 @@ export default tseslint.config(
     files: ['renderer/engine/**/*.ts'],
     rules: {
       'no-restricted-imports': ['error', {
-        paths: ['react', 'react-dom', 'electron', 'xlsx', 'papaparse', 'zod', 'write-file-atomic'],
+        paths: ['react', 'react-dom', 'electron', 'xlsx', 'papaparse', 'zod'],
         patterns: [
           { group: nodeBuiltins, message: 'renderer/engine must stay pure (no Node).' },
           { group: ['**/ui/**', '**/state/**', '**/main/**', '**/bridge/**'], message: 'renderer/engine must not import upward.' },
