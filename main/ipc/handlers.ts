@@ -8,6 +8,7 @@ import type {
   ExportRequest,
   FileKind,
   ImportLayout,
+  ImportLimitsRequest,
   ImportProblem,
   MergePreview,
   RecoveryInfo,
@@ -39,7 +40,10 @@ export interface BridgeDeps {
    * reads directly.
    */
   readonly isolateImports?: boolean;
-  /** Size, time and heap limits for isolated reading; the defaults of main/services/untrusted when absent. */
+  /**
+   * Size, time and heap limits for reading (the direct reading applies the size only); the defaults of
+   * main/services/untrusted when absent. The limits of each request (ImportLimitsRequest) override them.
+   */
   readonly importLimits?: Partial<ImportLimits>;
   /** Called after the recent-files list changed, e.g. to rebuild the native "Open recent" menu. */
   readonly onRecentFilesChanged?: (paths: readonly string[]) => void;
@@ -51,9 +55,9 @@ export interface BridgeDeps {
  * transport and every test.
  */
 export interface BridgeServices {
-  previewSpreadsheet(path: string, override?: { encoding?: TextEncoding; delimiter?: string }): Promise<Result<WorkbookPreview>>;
-  importSpreadsheet(path: string, layout: ImportLayout): Promise<Result<{ gradebook: Gradebook; problems: readonly ImportProblem[] }>>;
-  previewMerge(current: CourseProject, path: string, layout: ImportLayout): Promise<Result<MergePreview>>;
+  previewSpreadsheet(path: string, override?: { encoding?: TextEncoding; delimiter?: string; limits?: ImportLimitsRequest }): Promise<Result<WorkbookPreview>>;
+  importSpreadsheet(path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<{ gradebook: Gradebook; problems: readonly ImportProblem[] }>>;
+  previewMerge(current: CourseProject, path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<MergePreview>>;
   loadProject(path: string): Promise<Result<CourseProject>>;
   saveProject(path: string, project: CourseProject): Promise<Result<{ path: string; savedAt: string }>>;
   exportFinals(request: ExportRequest): Promise<Result<{ path: string; rows: number }>>;
@@ -90,8 +94,8 @@ export function createHandlersFrom(services: BridgeServices, deps: BridgeDeps): 
       if (result.ok) await remember(path);
       return result;
     },
-    importSpreadsheet: (path, layout) => services.importSpreadsheet(path, layout),
-    previewMerge: (current, path, layout) => services.previewMerge(current, path, layout),
+    importSpreadsheet: (path, layout, limits) => services.importSpreadsheet(path, layout, limits),
+    previewMerge: (current, path, layout, limits) => services.previewMerge(current, path, layout, limits),
     async loadProject(path) {
       const result = await services.loadProject(path);
       if (result.ok) await remember(path);

@@ -36,6 +36,7 @@ import type {
   ExportRequest,
   FileKind,
   ImportLayout,
+  ImportLimitsRequest,
   ImportProblem,
   RecoveryInfo,
   ScoreTokens,
@@ -43,6 +44,7 @@ import type {
   SourceInfo,
   TextEncoding,
 } from '../../renderer/bridge/contract';
+import { MAX_IMPORT_LIMITS_REQUEST } from '../../renderer/bridge/importLimits';
 
 const finite = z.number().finite();
 const nonEmpty = z.string().min(1);
@@ -252,10 +254,20 @@ export const importLayoutSchema = z.strictObject({
   delimiter: z.string().min(1).max(1).optional(),
 });
 
+/**
+ * Import limits from the window: positive, and no larger than MAX_IMPORT_LIMITS_REQUEST (2 GB is
+ * beyond any gradebook; ten minutes beyond any patience). zod 4 numbers refuse NaN and ±Infinity.
+ */
+export const importLimitsRequestSchema = z.strictObject({
+  maxMegabytes: z.number().positive().max(MAX_IMPORT_LIMITS_REQUEST.maxMegabytes).optional(),
+  maxSeconds: z.number().positive().max(MAX_IMPORT_LIMITS_REQUEST.maxSeconds).optional(),
+});
+
 /** The optional override passed to previewSpreadsheet. */
 export const previewOverrideSchema = z.strictObject({
   encoding: textEncodingSchema.optional(),
   delimiter: z.string().min(1).max(1).optional(),
+  limits: importLimitsRequestSchema.optional(),
 });
 
 export const sourceInfoSchema = z.strictObject({
@@ -371,6 +383,7 @@ export type SchemaTypeChecks = [
   Check<AssertSame<typeof sheetLayoutSchema, SheetLayout>>,
   Check<AssertSame<typeof textEncodingSchema, TextEncoding>>,
   Check<AssertSame<typeof importLayoutSchema, ImportLayout>>,
+  Check<AssertSame<typeof importLimitsRequestSchema, ImportLimitsRequest>>,
   Check<AssertSame<typeof sourceInfoSchema, SourceInfo>>,
   Check<AssertSame<typeof courseProjectSchema, CourseProject>>,
   Check<AssertSame<typeof recoveryInfoSchema, RecoveryInfo>>,

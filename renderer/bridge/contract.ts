@@ -177,15 +177,27 @@ export interface RecoveryInfo {
 
 export type FileKind = 'spreadsheet' | 'project' | 'export' | 'report';
 
+/**
+ * Limits the user sets for one import, in the units the window shows. A limit left out takes the
+ * default (DEFAULT_IMPORT_LIMITS_REQUEST in importLimits.ts). The size limit applies to every
+ * reading; the time limit to reading in a worker (the desktop app).
+ */
+export interface ImportLimitsRequest {
+  /** Largest file accepted, in binary megabytes (1 MB = 1024 × 1024 bytes). */
+  readonly maxMegabytes?: number;
+  /** Longest a reading may run, in seconds. */
+  readonly maxSeconds?: number;
+}
+
 /** Every call the renderer may make to the main process. */
 export interface DesktopBridge {
   /** Native dialogs exist (Electron); false in the browser harness, where the UI asks for a path. */
   readonly hasNativeDialogs: boolean;
   chooseOpenPath(kind: FileKind): Promise<Result<string | null>>;
   chooseSavePath(kind: FileKind, suggestedName: string): Promise<Result<string | null>>;
-  previewSpreadsheet(path: string, override?: { encoding?: TextEncoding; delimiter?: string }): Promise<Result<WorkbookPreview>>;
-  importSpreadsheet(path: string, layout: ImportLayout): Promise<Result<{ gradebook: Gradebook; problems: readonly ImportProblem[] }>>;
-  previewMerge(current: CourseProject, path: string, layout: ImportLayout): Promise<Result<MergePreview>>;
+  previewSpreadsheet(path: string, override?: { encoding?: TextEncoding; delimiter?: string; limits?: ImportLimitsRequest }): Promise<Result<WorkbookPreview>>;
+  importSpreadsheet(path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<{ gradebook: Gradebook; problems: readonly ImportProblem[] }>>;
+  previewMerge(current: CourseProject, path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<MergePreview>>;
   loadProject(path: string): Promise<Result<CourseProject>>;
   saveProject(path: string, project: CourseProject): Promise<Result<{ path: string; savedAt: string }>>;
   exportFinals(request: ExportRequest): Promise<Result<{ path: string; rows: number }>>;

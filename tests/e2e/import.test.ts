@@ -10,8 +10,10 @@ import { join } from 'node:path';
 import type { Page } from 'playwright-core';
 import type { ImportLayout, ImportProblem, WorkbookPreview } from '../../renderer/bridge/contract';
 import { importSpreadsheet, previewMerge, previewSpreadsheet } from '../../main/services/spreadsheet';
+import { createBridgeHandlers, dispatchBridgeCall } from '../../main/ipc/index';
 import { loadDemoCourse } from '../../main/services/demo';
 import { loadProject } from '../../main/services/project';
+import { DEFAULT_IMPORT_LIMITS_REQUEST } from '../../renderer/bridge/importLimits';
 import { suggestPlan } from '../../renderer/engine/grading/suggestPlan';
 import { columnLetter } from '../../renderer/ui/common/columnLetter';
 import { assessmentColumns, setColumnRole } from '../../renderer/ui/import/layoutEdits';
@@ -255,6 +257,33 @@ describe('Import workspace', { timeout: 90_000 }, () => {
     // One field per line now: the grid is as wide as the services' preview says.
     const width = Math.max(semicolon.value.sheets[0]!.totalColumns, 1);
     await expect.poll(() => page.locator('.wb-preview thead th').count()).toBe(width + 1);
+  });
+
+  it('a file over the size limit is refused in the service\'s words; raising the limit reads it', async () => {
+    const { page } = await start();
+    // The refusal the same request gets from the bridge's direct reading (what the harness runs).
+    const dir = await mkdtemp(join(tmpdir(), 'weighbridge-import-test-'));
+    temps.push(dir);
+    const handlers = createBridgeHandlers({ userDataDir: dir, dialogs: null, appRoot: repoRoot });
+    const refused = await dispatchBridgeCall(handlers, 'previewSpreadsheet', [xlsx, { limits: { maxMegabytes: 0.01, maxSeconds: 30 } }]);
+    if (refused.ok) throw new Error('The demo workbook is smaller than 0.01 MB; the test needs a larger file.');
+    expect(refused.code).toBe('too-large');
+    await page.getByRole('tab', { name: 'Import' }).click();
+    const size = page.getByLabel('Largest file (MB)');
+    expect(await size.inputValue()).toBe(String(DEFAULT_IMPORT_LIMITS_REQUEST.maxMegabytes));
+    expect(await page.getByLabel('Time limit (s)').inputValue()).toBe(String(DEFAULT_IMPORT_LIMITS_REQUEST.maxSeconds));
+    await size.fill('0.01');
+    await size.press('Enter');
+    await page.getByRole('button', { name: 'Choose a spreadsheet…' }).click();
+    await answerPathDialog(page, xlsx);
+    const alert = page.locator('.wb-import-error');
+    await alert.waitFor();
+    expect(await alert.locator('p').first().textContent()).toBe(refused.message);
+    await size.fill('50');
+    await size.press('Enter');
+    await alert.getByRole('button', { name: 'Read again with these limits' }).click();
+    await page.getByRole('region', { name: /^Preview of sheet / }).waitFor();
+    expect(await alert.count()).toBe(0);
   });
 
   for (const colorScheme of ['light', 'dark'] as const) {

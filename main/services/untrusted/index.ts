@@ -18,12 +18,12 @@ import type { z } from 'zod';
 import type { CourseProject, Failure, ImportLayout, ImportProblem, Result, WorkbookPreview } from '../../../renderer/bridge/contract';
 import { describeIssues } from '../schemas';
 import { previewMergeBooks, type ImportOutcome, type MergeDetails, type ReadOverride } from '../spreadsheet';
-import { DEFAULT_RAISE_HINT, formatBytes, formatMillis, resolveLimits, type ImportLimits } from './limits';
+import { DEFAULT_RAISE_HINT, formatBytes, formatMillis, resolveLimits, tooLargeFailure, type ImportLimits } from './limits';
 import { jobReplySchema, readyMessageSchema, type JobKind, type JobRequest, type TestOnlyHooks } from './protocol';
 import { detectOutcomeSchema, importOutcomeSchema, resultSchema, workbookPreviewSchema, type DetectOutcome } from './resultSchemas';
 import { defaultWorkerEntry, type WorkerEntry } from './workerEntry';
 
-export { DEFAULT_IMPORT_LIMITS, DEFAULT_RAISE_HINT, type ImportLimits } from './limits';
+export { checkFileSize, DEFAULT_IMPORT_LIMITS, DEFAULT_RAISE_HINT, limitsFromRequest, resolveLimits, type ImportLimits } from './limits';
 export { BUNDLED_WORKER_NAME, defaultWorkerEntry, sourceWorkerEntry, type WorkerEntry } from './workerEntry';
 export type { TestOnlyHooks } from './protocol';
 export type { DetectOutcome } from './resultSchemas';
@@ -226,7 +226,7 @@ async function readLimited(path: string, maxBytes: number, hint: string): Promis
     if (info.isDirectory()) return fail('bad-input', `"${path}" is a folder, not a file. Choose the gradebook file.`);
     if (!info.isFile()) return fail('bad-input', `"${path}" is not an ordinary file (it may be a device or a pipe). Choose the gradebook file.`);
     if (info.size > maxBytes) {
-      return fail('too-large', `The file "${name}" is ${formatBytes(info.size)}, larger than the import size limit of ${formatBytes(maxBytes)}. A gradebook is rarely this large: check that it is the right file, or raise the size limit ${hint}.`);
+      return tooLargeFailure(name, info.size, maxBytes, hint);
     }
     // Its own ArrayBuffer (never Node's shared pool), so it can be transferred to the worker.
     const bytes = new Uint8Array(info.size);

@@ -4,7 +4,9 @@
  * stop a damaged or hostile file (a decompression bomb, a sheet that declares a million columns)
  * from freezing or exhausting the app. Every limit can be raised by the user.
  */
-import type { Failure } from '../../../renderer/bridge/contract';
+import { stat } from 'node:fs/promises';
+import { basename } from 'node:path';
+import type { Failure, ImportLimitsRequest, Result } from '../../../renderer/bridge/contract';
 
 export interface ImportLimits {
   /** Largest file accepted, in bytes; checked with fstat before the file is read. */
@@ -52,4 +54,35 @@ export function formatBytes(n: number): string {
 export function formatMillis(ms: number): string {
   if (ms >= 1000) return `${Number((ms / 1000).toFixed(ms >= 10_000 ? 0 : 1))} s`;
   return `${Math.round(ms)} ms`;
+}
+
+/**
+ * The window's limits (megabytes, seconds) as ImportLimits, over `base` (the process's own limits);
+ * a limit the request leaves out keeps the base's. Binary megabytes, as formatBytes shows them.
+ */
+export function limitsFromRequest(request: ImportLimitsRequest | undefined, base: Partial<ImportLimits> | undefined): Partial<ImportLimits> {
+  return {
+    ...(base ?? {}),
+    ...(request?.maxMegabytes !== undefined ? { maxBytes: Math.round(request.maxMegabytes * 1024 * 1024) } : {}),
+    ...(request?.maxSeconds !== undefined ? { maxMillis: Math.round(request.maxSeconds * 1000) } : {}),
+  };
+}
+
+/** The refusal of a file over the size limit; the isolated and the direct reading say the same. */
+export function tooLargeFailure(fileName: string, size: number, maxBytes: number, hint: string): Failure {
+  return {
+    ok: false,
+    code: 'too-large',
+    message: `The file "${fileName}" is ${formatBytes(size)}, larger than the import size limit of ${formatBytes(maxBytes)}. A gradebook is rarely this large: check that it is the right file, or raise the size limit ${hint}.`,
+  };
+}
+
+/**
+ * The size check for a reading done in this process (no worker): stat before the file is read. A
+ * path that cannot be stat'ed passes, so that the reading itself reports it in its own words.
+ */
+export async function checkFileSize(path: string, maxBytes: number, hint: string = DEFAULT_RAISE_HINT): Promise<Result<null>> {
+  const info = await stat(path).catch(() => null);
+  if (info !== null && info.isFile() && info.size > maxBytes) return tooLargeFailure(basename(path), info.size, maxBytes, hint);
+  return { ok: true, value: null };
 }

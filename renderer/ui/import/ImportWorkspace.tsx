@@ -7,6 +7,7 @@
  */
 import { useCallback, useEffect, useId, useRef, useState } from 'react';
 import { useBridge } from '../../bridge/BridgeContext';
+import { DEFAULT_IMPORT_LIMITS_REQUEST } from '../../bridge/importLimits';
 import type {
   CourseProject,
   Failure,
@@ -24,6 +25,7 @@ import { useCourseStore } from '../../state/courseStore';
 import { useFrame } from '../app/frameContext';
 import { workspaces } from '../app/workspaces';
 import { Button } from '../common/Button';
+import { ImportLimitsFields, LIMIT_FAILURE_CODES, type ImportLimitValues } from './ImportLimitsFields';
 import { MergeReview } from './MergeReview';
 import { PreviewGrid } from './PreviewGrid';
 import { ProblemList } from './ProblemList';
@@ -91,6 +93,9 @@ export function ImportWorkspace() {
   const [busy, setBusy] = useState<Busy | null>(null);
   const [readError, setReadError] = useState<Failure | null>(null);
   const [merge, setMerge] = useState<MergePreview | null>(null);
+  const [limits, setLimits] = useState<ImportLimitValues>(DEFAULT_IMPORT_LIMITS_REQUEST);
+  /** The last read's override (encoding, delimiter), so "Read again" repeats it under the new limits. */
+  const lastOverride = useRef<{ encoding?: TextEncoding; delimiter?: string } | undefined>(undefined);
   /** Bumped by every long call and by Cancel: a reply whose serial is stale is discarded. */
   const serial = useRef(0);
   const checkSerial = useRef(0);
@@ -114,7 +119,8 @@ export function ImportWorkspace() {
 
   const readPreview = useCallback(
     async (file: string, override?: { encoding?: TextEncoding; delimiter?: string }) => {
-      const r = await runBusy(`Reading ${file}`, () => bridge.previewSpreadsheet(file, override));
+      lastOverride.current = override;
+      const r = await runBusy(`Reading ${file}`, () => bridge.previewSpreadsheet(file, { ...override, limits }));
       if (r === null) return;
       setPath(file);
       setMerge(null);
@@ -131,7 +137,7 @@ export function ImportWorkspace() {
       setCheck(null);
       setActiveSheet(r.value.detected.sheets[0]?.sheet ?? r.value.sheets[0]?.name ?? null);
     },
-    [bridge, runBusy],
+    [bridge, runBusy, limits],
   );
 
   // A file handed over by the frame (menu, drop, path dialog).
@@ -148,12 +154,12 @@ export function ImportWorkspace() {
     if (path === null || layout === null) return;
     const mine = ++checkSerial.current;
     const timer = setTimeout(() => {
-      void bridge.importSpreadsheet(path, layout).then((outcome) => {
+      void bridge.importSpreadsheet(path, layout, limits).then((outcome) => {
         if (checkSerial.current === mine) setCheck({ layout, outcome });
       });
     }, CHECK_DELAY_MS);
     return () => clearTimeout(timer);
-  }, [bridge, path, layout]);
+  }, [bridge, path, layout, limits]);
 
   const chooseFile = async () => {
     const chosen = await frame.choosePath({ kind: 'spreadsheet', mode: 'open', title: 'Import a spreadsheet' });
@@ -167,7 +173,7 @@ export function ImportWorkspace() {
 
   const loadNew = async () => {
     if (path === null || preview === null || layout === null) return;
-    const r = await runBusy(`Importing ${preview.fileName}`, () => bridge.importSpreadsheet(path, layout));
+    const r = await runBusy(`Importing ${preview.fileName}`, () => bridge.importSpreadsheet(path, layout, limits));
     if (r === null) return;
     if (!r.ok) {
       frame.notify(failureText(r), 'error');
@@ -189,7 +195,7 @@ export function ImportWorkspace() {
   const startMerge = async () => {
     if (path === null || layout === null || store.project === null) return;
     const project = store.project;
-    const r = await runBusy('Comparing with the open course', () => bridge.previewMerge(project, path, layout));
+    const r = await runBusy('Comparing with the open course', () => bridge.previewMerge(project, path, layout, limits));
     if (r === null) return;
     if (!r.ok) {
       frame.notify(failureText(r), 'error');
@@ -242,9 +248,14 @@ export function ImportWorkspace() {
         </p>
       )}
 
+      <ImportLimitsFields limits={limits} onChange={setLimits} />
+
       {readError !== null && (
         <div className="wb-import-error" role="alert">
           <p>{readError.message}</p>
+          {path !== null && LIMIT_FAILURE_CODES.includes(readError.code) && (
+            <Button onClick={() => void readPreview(path, lastOverride.current)} disabled={busy !== null}>Read again with these limits</Button>
+          )}
           {readError.problems !== undefined && <ProblemList problems={readError.problems} checking={false} />}
         </div>
       )}
