@@ -74,6 +74,14 @@ export function freedmanDiaconisBinWidth(iqr: number, n: number): number {
   return 2 * iqr * Math.cbrt(1 / n);
 }
 
+/**
+ * A width too small to step from `start` in binary64 (h underflows to 0, or start + h rounds back
+ * to start, as with subnormal spreads) makes no bins; the reason says so.
+ */
+function widthProblem(start: number, h: number): string | null {
+  return h > 0 && start + h > start ? null : `the values are too close together (bin width ${h}) to be split into bins at double precision`;
+}
+
 /** Count values into k bins with edges lower_i = start + i·h (last bin closed at `end`). */
 function fill(sorted: readonly number[], start: number, h: number, k: number, end: number): Bin[] {
   const edge = (i: number): number => (i === k ? end : start + i * h);
@@ -112,6 +120,8 @@ export function histogram(values: readonly number[], rule: BinRule): Defined<His
     let first = Math.floor((min - origin) / h);
     if (origin + first * h > min) first--; // rounding (or underflow) in the division
     const start = origin + first * h;
+    const tooNarrow = widthProblem(start, h);
+    if (tooNarrow !== null) return notDefined(tooNarrow);
     let k = Math.max(1, Math.ceil((max - start) / h));
     if (start + k * h < max) k++; // rounding in the division
     if (k > MAX_BINS) return notDefined(`a width of ${h} needs ${k} bins (more than ${MAX_BINS}); choose a wider width`);
@@ -123,6 +133,8 @@ export function histogram(values: readonly number[], rule: BinRule): Defined<His
   if (rule.kind === 'sturges') {
     const k = sturgesBinCount(n);
     const h = range / k;
+    const tooNarrow = widthProblem(min, h);
+    if (tooNarrow !== null) return notDefined(tooNarrow);
     return defined({ rule: `Sturges (1926): k = ⌈log₂ ${n} + 1⌉ = ${k}`, binWidth: h, bins: fill(sorted, min, h, k, max) });
   }
 
@@ -139,6 +151,8 @@ export function histogram(values: readonly number[], rule: BinRule): Defined<His
     h = freedmanDiaconisBinWidth(iqr, n);
     label = `Freedman–Diaconis (1981): h = 2·IQR·n^(−1/3) = ${h}`;
   }
+  const tooNarrow = widthProblem(min, h);
+  if (tooNarrow !== null) return notDefined(tooNarrow);
   const k = Math.max(1, Math.ceil(range / h));
   if (k > MAX_BINS) return notDefined(`the rule gives ${k} bins (more than ${MAX_BINS})`);
   const end = Math.max(min + k * h, max);

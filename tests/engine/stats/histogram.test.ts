@@ -139,3 +139,17 @@ describe('property (fast-check): every rule covers the data and counts sum to n'
     );
   });
 });
+
+describe('subnormal spreads (found by the property above)', () => {
+  it('[7.4e-323, 7e-323]: never throws; each rule is defined with full coverage or not defined with a reason', () => {
+    const xs = [7.4e-323, 7e-323];
+    for (const rule of [{ kind: 'sturges' }, { kind: 'scott' }, { kind: 'freedmanDiaconis' }, { kind: 'fixed', width: 7 }] as BinRule[]) {
+      const h = histogram(xs, rule);
+      if (h.defined) checkCoverage(h.value, xs);
+      else expect(h.reason).toMatch(/too close together|IQR|spread/);
+    }
+    // Sturges' width (range / 2 ≈ 2e-324) underflows to a value that cannot step from the minimum.
+    const sturges = histogram(xs, { kind: 'sturges' });
+    expect(sturges.defined).toBe(false);
+  });
+});

@@ -1,5 +1,6 @@
 /** Test fixtures made with the xlsx library itself, and temp files for the path-taking API. */
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { afterAll } from 'vitest';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import * as XLSX from 'xlsx';
@@ -21,8 +22,17 @@ export function workbookBytes(sheets: readonly FixtureSheet[], bookType: 'xlsx' 
   return out;
 }
 
+const made: string[] = [];
+// Fixture folders are removed after each test file that made them (this module is imported while
+// the file is collected, so the hook belongs to that file).
+afterAll(() => {
+  for (const dir of made.splice(0)) rmSync(dir, { recursive: true, force: true });
+});
+
 export function tempDir(): string {
-  return mkdtempSync(join(tmpdir(), 'wb-import-'));
+  const dir = mkdtempSync(join(tmpdir(), 'wb-import-'));
+  made.push(dir);
+  return dir;
 }
 
 export function writeTemp(dir: string, name: string, bytes: Uint8Array | string): string {
