@@ -3,20 +3,7 @@
  * no single service (file dialogs, recent files). Arguments arrive here already validated by
  * `dispatchBridgeCall`; handlers return Results and do not throw on expected failures.
  */
-import type {
-  CourseProject,
-  ExportRequest,
-  FileKind,
-  ImportLayout,
-  ImportLimitsRequest,
-  ImportProblem,
-  MergePreview,
-  RecoveryInfo,
-  Result,
-  TextEncoding,
-  WorkbookPreview,
-} from '../../renderer/bridge/contract';
-import type { Gradebook } from '../../renderer/engine/model';
+import type { DesktopBridge, FileKind, Result } from '../../renderer/bridge/contract';
 import type { ImportLimits } from '../services/untrusted';
 import type { BridgeHandlers } from './dispatch';
 import { failure } from './dispatch';
@@ -54,21 +41,10 @@ export interface BridgeDeps {
  * them to `main/services`; keeping the seam here means the wiring below is the same for every
  * transport and every test.
  */
-export interface BridgeServices {
-  previewSpreadsheet(path: string, override?: { encoding?: TextEncoding; delimiter?: string; limits?: ImportLimitsRequest }): Promise<Result<WorkbookPreview>>;
-  importSpreadsheet(path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<{ gradebook: Gradebook; problems: readonly ImportProblem[] }>>;
-  previewMerge(current: CourseProject, path: string, layout: ImportLayout, limits?: ImportLimitsRequest): Promise<Result<MergePreview>>;
-  loadProject(path: string): Promise<Result<CourseProject>>;
-  saveProject(path: string, project: CourseProject): Promise<Result<{ path: string; savedAt: string }>>;
-  exportFinals(request: ExportRequest): Promise<Result<{ path: string; rows: number }>>;
-  writeRecovery(projectPath: string | null, project: CourseProject): Promise<Result<{ savedAt: string }>>;
-  readRecovery(): Promise<Result<RecoveryInfo | null>>;
-  discardRecovery(): Promise<Result<null>>;
-  recentFiles(): Promise<Result<readonly string[]>>;
+export type BridgeServices = Omit<DesktopBridge, 'hasNativeDialogs' | 'chooseOpenPath' | 'chooseSavePath'> & {
   /** Put `path` at the top of the recent-files list; resolves to the new list. */
   addRecentFile(path: string): Promise<Result<readonly string[]>>;
-  demoCourse(): Promise<Result<CourseProject>>;
-}
+};
 
 const noDialogs = failure('no-dialogs', 'This window has no file dialogs: type the full path of the file instead.');
 
