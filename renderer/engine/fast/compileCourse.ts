@@ -47,6 +47,20 @@ export interface CompiledCategory {
   readonly items: Int32Array;
   readonly extraCredit: Uint8Array;
   readonly possible: Float64Array;
+  // Derived once from the above for the grading loops (gradeCompiled.ts categoryPercent):
+  /** The items that are not extra credit, in the same order, and their points possible. */
+  readonly regular: Int32Array;
+  readonly regularPossible: Float64Array;
+  /** The extra-credit items. */
+  readonly extra: Int32Array;
+  /**
+   * counts[state] = 1 when a cell in that state enters the category (earned always; missing when
+   * the category counts it as 0; pending in a projected final), else 0 — categoryScore.ts's rule
+   * as a table, so the loop does one lookup instead of three tests.
+   */
+  readonly counts: Uint8Array;
+  /** The category percent when the category has no assessments: 0 in a projected final, else none. */
+  readonly emptyPercent: number;
 }
 
 export interface CompiledPlan {
@@ -73,23 +87,38 @@ export interface CompiledCourse {
 
 export function compilePlan(assessments: readonly Assessment[], plan: GradingPlan): CompiledPlan {
   const layout = layoutFor({ students: [], assessments, scores: [] }, plan);
-  const categories = layout.map(({ category, items }) => ({
-    id: category.id,
-    weight: safeWeight(category.weight),
-    totalPoints: category.combine === 'totalPoints',
-    dropLowest: category.dropLowest,
-    cap: category.capPercent ?? Number.NaN,
-    hasCap: category.capPercent !== null,
-    missingCountsZero: category.missingAs !== 'excluded',
-    items: Int32Array.from(items, (it) => it.index),
-    extraCredit: Uint8Array.from(items, (it) => (it.extraCredit ? 1 : 0)),
-    possible: Float64Array.from(items, (it) => it.possible),
-  }));
+  const projected = plan.markMode === 'projected';
+  const categories = layout.map(({ category, items }): CompiledCategory => {
+    const missingCountsZero = category.missingAs !== 'excluded';
+    const regular = items.filter((it) => !it.extraCredit);
+    const counts = new Uint8Array(4);
+    counts[EARNED] = 1;
+    counts[MISSING] = missingCountsZero ? 1 : 0;
+    counts[EXCUSED] = 0;
+    counts[PENDING] = projected ? 1 : 0;
+    return {
+      id: category.id,
+      weight: safeWeight(category.weight),
+      totalPoints: category.combine === 'totalPoints',
+      dropLowest: category.dropLowest,
+      cap: category.capPercent ?? Number.NaN,
+      hasCap: category.capPercent !== null,
+      missingCountsZero,
+      items: Int32Array.from(items, (it) => it.index),
+      extraCredit: Uint8Array.from(items, (it) => (it.extraCredit ? 1 : 0)),
+      possible: Float64Array.from(items, (it) => it.possible),
+      regular: Int32Array.from(regular, (it) => it.index),
+      regularPossible: Float64Array.from(regular, (it) => it.possible),
+      extra: Int32Array.from(items.filter((it) => it.extraCredit), (it) => it.index),
+      counts,
+      emptyPercent: projected ? 0 : Number.NaN,
+    };
+  });
   return {
     plan,
     assessmentCount: assessments.length,
     categories,
-    projected: plan.markMode === 'projected',
+    projected,
     decimals: usableDecimals(plan.rounding.decimals),
     cutoffs: sortedCutoffs(plan.scale),
   };

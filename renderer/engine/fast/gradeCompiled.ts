@@ -26,10 +26,7 @@ import type { GradingPlan, Score } from '../model';
 import { dropCount, dropForTotalPoints, dropLowestPercents, type DropCandidate } from '../grading/dropLowest';
 import {
   COUNTED,
-  EARNED,
-  MISSING,
   NOTHING_GRADED,
-  PENDING,
   compilePlan,
   setCompiledScore,
   type CompiledCategory,
@@ -66,70 +63,97 @@ export function scratchFor(compiled: CompiledPlan): Scratch {
 /**
  * One category percent (categoryScore.ts) for the row starting at `base`; NaN when nothing is
  * graded. A category with no assessments is 0 in the projected final (gradeCourse's noColumns rule).
+ *
+ * Which cells enter is the compiled `counts` table (one lookup per cell). Extra credit adds its
+ * earned points whatever the cell's state: compiled earned points are 0 for every state but
+ * earned, and adding +0 leaves a sum of non-negative numbers unchanged, so the sum is the plain one.
+ * Without drop-lowest the sums run straight over the row; with it the counted cells are gathered
+ * first (the drop choice needs them side by side).
  */
-export function categoryPercent(
-  cat: CompiledCategory,
-  earned: Float64Array,
-  state: Uint8Array,
-  base: number,
-  projected: boolean,
-  scratch: Scratch,
-): number {
-  const items = cat.items;
-  const m = items.length;
-  if (m === 0) return projected ? 0 : Number.NaN;
+export function categoryPercent(cat: CompiledCategory, earned: Float64Array, state: Uint8Array, base: number, scratch: Scratch): number {
+  if (cat.items.length === 0) return cat.emptyPercent;
+  const ex = cat.extra;
   let extra = 0;
-  let n = 0;
-  const ce = scratch.earned;
-  const cp = scratch.possible;
-  for (let j = 0; j < m; j++) {
-    const cell = base + items[j]!;
-    const st = state[cell]!;
-    if (cat.extraCredit[j] === 1) {
-      if (st === EARNED) extra += earned[cell]!;
-      continue;
-    }
-    if (st === EARNED) {
-      ce[n] = earned[cell]!;
-    } else if ((st === MISSING && cat.missingCountsZero) || (st === PENDING && projected)) {
-      ce[n] = 0;
-    } else {
-      continue;
-    }
-    cp[n] = cat.possible[j]!;
-    n++;
-  }
-  if (n === 0) return Number.NaN;
+  for (let j = 0; j < ex.length; j++) extra += earned[base + ex[j]!]!;
+  const reg = cat.regular;
+  const pos = cat.regularPossible;
+  const counts = cat.counts;
+  const m = reg.length;
   let sumE = 0;
   let sumP = 0;
   let sumPct = 0;
-  let kept = n;
-  const drops = dropCount(n, cat.dropLowest);
-  const ds = scratch.drop;
-  if (drops > 0 && (cat.totalPoints ? dropForTotalPointsFast(ce, cp, n, cat.dropLowest, ds) : dropLowestPercentsFast(ce, cp, n, cat.dropLowest, ds))) {
-    kept = n - drops;
-    for (let i = 0; i < n; i++) {
-      if (ds.dropped[i] === 1) continue;
-      sumE += ce[i]!;
-      sumP += cp[i]!;
-      sumPct += (100 * ce[i]!) / cp[i]!;
+  let kept = 0;
+  if (!(cat.dropLowest > 0)) {
+    if (cat.totalPoints) {
+      for (let j = 0; j < m; j++) {
+        const cell = base + reg[j]!;
+        if (counts[state[cell]!] === 1) {
+          sumE += earned[cell]!;
+          sumP += pos[j]!;
+          kept++;
+        }
+      }
+    } else {
+      for (let j = 0; j < m; j++) {
+        const cell = base + reg[j]!;
+        if (counts[state[cell]!] === 1) {
+          const p = pos[j]!;
+          sumP += p;
+          sumPct += (100 * earned[cell]!) / p;
+          kept++;
+        }
+      }
     }
-  } else if (drops > 0) {
-    // Points too fine or too large for exact double products: the plain BigInt choice.
-    const candidates: DropCandidate[] = [];
-    for (let i = 0; i < n; i++) candidates.push({ earned: ce[i]!, possible: cp[i]! });
-    const choice = cat.totalPoints ? dropForTotalPoints(candidates, cat.dropLowest) : dropLowestPercents(candidates, cat.dropLowest);
-    kept = choice.kept.length;
-    for (const i of choice.kept) {
-      sumE += ce[i]!;
-      sumP += cp[i]!;
-      sumPct += (100 * ce[i]!) / cp[i]!;
-    }
+    if (kept === 0) return Number.NaN;
   } else {
-    for (let i = 0; i < n; i++) {
-      sumE += ce[i]!;
-      sumP += cp[i]!;
-      sumPct += (100 * ce[i]!) / cp[i]!;
+    const ce = scratch.earned;
+    const cp = scratch.possible;
+    let n = 0;
+    for (let j = 0; j < m; j++) {
+      const cell = base + reg[j]!;
+      if (counts[state[cell]!] === 1) {
+        ce[n] = earned[cell]!;
+        cp[n] = pos[j]!;
+        n++;
+      }
+    }
+    if (n === 0) return Number.NaN;
+    kept = n;
+    const drops = dropCount(n, cat.dropLowest);
+    const ds = scratch.drop;
+    if (drops > 0 && (cat.totalPoints ? dropForTotalPointsFast(ce, cp, n, cat.dropLowest, ds) : dropLowestPercentsFast(ce, cp, n, cat.dropLowest, ds))) {
+      kept = n - drops;
+      const dropped = ds.dropped;
+      if (cat.totalPoints) {
+        for (let i = 0; i < n; i++) {
+          if (dropped[i] === 1) continue;
+          sumE += ce[i]!;
+          sumP += cp[i]!;
+        }
+      } else {
+        for (let i = 0; i < n; i++) {
+          if (dropped[i] === 1) continue;
+          sumP += cp[i]!;
+          sumPct += (100 * ce[i]!) / cp[i]!;
+        }
+      }
+    } else if (drops > 0) {
+      // Points too fine or too large for exact double products: the plain BigInt choice.
+      const candidates: DropCandidate[] = [];
+      for (let i = 0; i < n; i++) candidates.push({ earned: ce[i]!, possible: cp[i]! });
+      const choice = cat.totalPoints ? dropForTotalPoints(candidates, cat.dropLowest) : dropLowestPercents(candidates, cat.dropLowest);
+      kept = choice.kept.length;
+      for (const i of choice.kept) {
+        sumE += ce[i]!;
+        sumP += cp[i]!;
+        sumPct += (100 * ce[i]!) / cp[i]!;
+      }
+    } else {
+      for (let i = 0; i < n; i++) {
+        sumE += ce[i]!;
+        sumP += cp[i]!;
+        sumPct += (100 * ce[i]!) / cp[i]!;
+      }
     }
   }
   const baseline = cat.totalPoints ? (100 * sumE) / sumP : sumPct / kept;
@@ -165,7 +189,7 @@ function scoreStudent(course: CompiledCourse, grades: FastGrades, s: number, scr
       grades.catPercent[k] = Number.NaN;
       continue;
     }
-    const p = categoryPercent(compiled.categories[c]!, earned, state, base, compiled.projected, scratch);
+    const p = categoryPercent(compiled.categories[c]!, earned, state, base, scratch);
     grades.catStatus[k] = p === p ? COUNTED : NOTHING_GRADED;
     grades.catPercent[k] = p;
   }
@@ -347,7 +371,7 @@ export function updateScore(course: CompiledCourse, grades: FastGrades, student:
     const cat = compiled.categories[c]!;
     const k = student * C + c;
     if (course.waived[k] !== COUNTED || !cat.items.includes(assessment)) continue;
-    const p = categoryPercent(cat, course.earned, course.state, base, compiled.projected, scratch);
+    const p = categoryPercent(cat, course.earned, course.state, base, scratch);
     grades.catStatus[k] = p === p ? COUNTED : NOTHING_GRADED;
     grades.catPercent[k] = p;
   }

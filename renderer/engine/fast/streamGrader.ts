@@ -101,7 +101,7 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
       for (let c = 0; c < C; c++) {
         status[s * C + c] = codes[c]!;
         if (codes[c] !== COUNTED) continue;
-        const p = categoryPercent(compiled.categories[c]!, row.earned, row.state, 0, compiled.projected, scratch);
+        const p = categoryPercent(compiled.categories[c]!, row.earned, row.state, 0, scratch);
         if (p !== p) {
           status[s * C + c] = NOTHING_GRADED; // the category does not count
           continue;

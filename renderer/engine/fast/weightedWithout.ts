@@ -69,7 +69,7 @@ export function weightedWithout(course: CompiledCourse, grades: FastGrades, asse
       let p: number;
       if (changed[c] === 1) {
         if (waived[k] !== COUNTED) continue;
-        p = categoryPercent(cats[c]!, earned, state, s * A, without.projected, scratch);
+        p = categoryPercent(cats[c]!, earned, state, s * A, scratch);
         if (p !== p) continue; // nothing graded: the category does not count
       } else {
         if (grades.catStatus[k] !== COUNTED) continue;

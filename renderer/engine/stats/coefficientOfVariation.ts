@@ -27,12 +27,21 @@ export function coefficientOfVariation(values: readonly number[]): Defined<numbe
   if (!s.defined) return notDefined(`CV needs the sample SD: ${s.reason}`);
   let maxAbs = 0;
   for (const v of values) maxAbs = Math.max(maxAbs, Math.abs(v));
-  const noise = values.length * Number.EPSILON * maxAbs;
-  if (m.value === 0 || Math.abs(m.value) <= noise) {
+  return cvOf(m.value, s.value, values.length, maxAbs);
+}
+
+/**
+ * The CV rule once the mean and sample SD are known (n ≥ 2): s / mean, not defined when the mean
+ * is 0 or within n·ε·max|x| of it (rounding noise), or negative. `maxAbs` is max |xᵢ|. Shared with
+ * the fast statistics (fast/sectionFinalStatistics.ts), which compute mean and SD in one pass.
+ */
+export function cvOf(meanValue: number, sd: number, n: number, maxAbs: number): Defined<number> {
+  const noise = n * Number.EPSILON * maxAbs;
+  if (meanValue === 0 || Math.abs(meanValue) <= noise) {
     return notDefined('CV is not defined: the mean is 0 (or indistinguishable from 0)');
   }
-  if (m.value < 0) {
+  if (meanValue < 0) {
     return notDefined('CV is not defined: the mean is negative; CV needs ratio-scale data with a positive mean');
   }
-  return defined(s.value / m.value);
+  return defined(sd / meanValue);
 }

@@ -104,9 +104,16 @@ function fill(sorted: readonly number[], start: number, h: number, k: number, en
  */
 export function histogram(values: readonly number[], rule: BinRule): Defined<Histogram> {
   assertFiniteValues('histogram', values);
-  const n = values.length;
+  return histogramOfSorted(sortedCopy(values), rule);
+}
+
+/**
+ * histogram() of finite values already sorted ascending (the caller's guarantee; not re-checked),
+ * so a caller that sorted once — the fast statistics — does not sort again.
+ */
+export function histogramOfSorted(sorted: readonly number[], rule: BinRule): Defined<Histogram> {
+  const n = sorted.length;
   if (n === 0) return notDefined('no values (n = 0)');
-  const sorted = sortedCopy(values);
   const min = sorted[0] as number;
   const max = sorted[n - 1] as number;
   const range = max - min;

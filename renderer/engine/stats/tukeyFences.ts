@@ -39,23 +39,25 @@ export function tukeyFences(
   values: readonly number[],
   q1: number,
   q3: number,
-  labels?: readonly string[],
+  labels?: readonly string[] | ((index: number) => string),
 ): TukeyFences {
+  const labelOf = (index: number): string =>
+    (typeof labels === 'function' ? labels(index) : labels?.[index]) ?? `#${index + 1}`;
   const iqr = q3 - q1;
   const lowerFence = q1 - TUKEY_K * iqr;
   const upperFence = q3 + TUKEY_K * iqr;
   let lo = Infinity;
   let hi = -Infinity;
   const outliers: Outlier[] = [];
-  values.forEach((value, index) => {
-    const label = labels?.[index] ?? `#${index + 1}`;
-    if (value < lowerFence) outliers.push({ index, label, value, side: 'low' });
-    else if (value > upperFence) outliers.push({ index, label, value, side: 'high' });
+  for (let index = 0; index < values.length; index++) {
+    const value = values[index]!;
+    if (value < lowerFence) outliers.push({ index, label: labelOf(index), value, side: 'low' });
+    else if (value > upperFence) outliers.push({ index, label: labelOf(index), value, side: 'high' });
     else {
       if (value < lo) lo = value;
       if (value > hi) hi = value;
     }
-  });
+  }
   const side = (o: Outlier): number => (o.side === 'low' ? 0 : 1);
   outliers.sort((a, b) => side(a) - side(b) || a.value - b.value || a.index - b.index);
   const inside = lo <= hi;
