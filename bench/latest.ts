@@ -29,9 +29,22 @@ function num(r: Result, workload: string, key: string): string {
   return typeof v === 'number' ? String(v) : v === null || v === undefined ? '—' : String(v);
 }
 
+/** A figure one level down, e.g. recompute.withoutDropLowest.ratio. */
+function sub(r: Result, workload: string, part: string, key: string): string {
+  const w = r[workload];
+  if (typeof w !== 'object' || w === null) return '—';
+  const inner = (w as Record<string, unknown>)[part];
+  if (typeof inner !== 'object' || inner === null) return '—';
+  const v = (inner as Record<string, unknown>)[key];
+  return typeof v === 'number' ? String(v) : '—';
+}
+
 function table(r: Result): string {
   const rows: [string, string, string, string, string][] = [
     ['recompute', `${num(r, 'recompute', 'students')} × ${num(r, 'recompute', 'assessments')} × ${num(r, 'recompute', 'sections')} sections`, num(r, 'recompute', 'ms'), num(r, 'recompute', 'baselineMs'), num(r, 'recompute', 'ratio')],
+    ['… of which grading only', 'same course', num(r, 'recompute', 'gradeOnlyMs'), '(floor, same run)', num(r, 'recompute', 'gradeOnlyRatio')],
+    ['… of which statistics only', 'same course', num(r, 'recompute', 'statisticsOnlyMs'), '(floor, same run)', num(r, 'recompute', 'statisticsOnlyRatio')],
+    ['recompute with drop-lowest off', 'same course', sub(r, 'recompute', 'withoutDropLowest', 'ms'), sub(r, 'recompute', 'withoutDropLowest', 'baselineMs'), sub(r, 'recompute', 'withoutDropLowest', 'ratio')],
     ['weightEdit10k', `${num(r, 'weightEdit10k', 'students')} students`, num(r, 'weightEdit10k', 'ms'), num(r, 'weightEdit10k', 'baselineMs'), num(r, 'weightEdit10k', 'ratio')],
     ['incremental (score edit)', `${num(r, 'incremental', 'students')} students`, num(r, 'incremental', 'ms'), `${num(r, 'incremental', 'fullMs')} (full)`, num(r, 'incremental', 'ratio')],
     ['incremental (weight edit)', `${num(r, 'incremental', 'students')} students`, num(r, 'incremental', 'weightEditMs'), `${num(r, 'incremental', 'fullMs')} (full)`, num(r, 'incremental', 'weightEditRatio')],
