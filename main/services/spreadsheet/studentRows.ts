@@ -69,7 +69,11 @@ export class StudentRows {
   private readonly idLetter: string;
   private readonly personCols: readonly ColumnLayout[];
   private readonly cells: readonly CellPlan[];
+  /** Per cell plan: its sheet column, and its points possible (NaN when unknown). */
+  private readonly columns: Int32Array;
+  private readonly possible: Float64Array;
   private readonly inOrder: boolean;
+  private readonly roles: { readonly name?: ColumnLayout; readonly firstName?: ColumnLayout; readonly lastName?: ColumnLayout; readonly section?: ColumnLayout; readonly email?: ColumnLayout };
   private readonly absent: readonly Assessment[];
   private readonly assessmentCount: number;
   private readonly read: ScoreReader;
@@ -100,6 +104,14 @@ export class StudentRows {
       if (index !== undefined) cells.push({ assessment: a, index, column: a.column.index, letter: columnLetter(a.column.index) });
     }
     this.cells = cells;
+    this.columns = Int32Array.from(cells, (c) => c.column);
+    this.possible = Float64Array.from(cells, (c) => c.assessment.possible ?? Number.NaN);
+    const roles: { -readonly [K in keyof StudentRows['roles']]: ColumnLayout } = {};
+    for (const r of ['name', 'firstName', 'lastName', 'section', 'email'] as const) {
+      const c = p.role(r);
+      if (c !== undefined) roles[r] = c;
+    }
+    this.roles = roles;
     // The usual case (one sheet, or this sheet's columns in the gradebook's order): each student's
     // scores are pushed in order; otherwise they are placed by index over an all-excused row.
     this.inOrder = cells.length === assessments.length && cells.every((c, i) => c.index === i);
@@ -152,17 +164,18 @@ export class StudentRows {
     const read = this.read;
     let scores: Score[];
     if (this.inOrder) {
-      scores = new Array<Score>(cells.length);
-      for (let k = 0; k < cells.length; k++) {
-        const c = cells[k] as CellPlan;
-        const possible = c.assessment.possible;
-        const cell = row[c.column] ?? null;
-        // The usual cell, inline: a score within points possible and nothing to report.
-        const parsed = possible === null ? null : read(cell, possible);
-        scores[k] =
-          parsed !== null && parsed.ok && (parsed.score.kind !== 'earned' || parsed.score.points <= (possible as number))
-            ? parsed.score
-            : this.score(cell, c, rowNo);
+      const n = cells.length;
+      const columns = this.columns;
+      const possibles = this.possible;
+      scores = new Array<Score>(n);
+      for (let k = 0; k < n; k++) {
+        const possible = possibles[k] as number;
+        const cell = row[columns[k] as number] ?? null;
+        // The usual cell, inline: a score within points possible and nothing to report (an
+        // unknown points possible is NaN, so it never passes and `score` decides).
+        const parsed = read(cell, possible === possible ? possible : 0);
+        const score = parsed.ok ? parsed.score : null;
+        scores[k] = score !== null && possible === possible && (score.kind !== 'earned' || score.points <= possible) ? score : this.score(cell, cells[k] as CellPlan, rowNo);
       }
     } else {
       scores = [];
@@ -221,13 +234,13 @@ export class StudentRows {
 
   /** Names split over last/first-name columns are joined "Last, First"; only one filled → that one. */
   private student(row: readonly Cell[], id: string): Student {
-    const p = this.p;
-    const full = roleText(row, p.role('name'));
-    const first = roleText(row, p.role('firstName'));
-    const last = roleText(row, p.role('lastName'));
+    const roles = this.roles;
+    const full = roleText(row, roles.name);
+    const first = roleText(row, roles.firstName);
+    const last = roleText(row, roles.lastName);
     const name = full !== '' ? full : last !== '' && first !== '' ? `${last}, ${first}` : last !== '' ? last : first;
-    const section = this.layout.sectionFrom === 'sheetName' ? p.name : roleText(row, p.role('section'));
-    const email = roleText(row, p.role('email'));
+    const section = this.layout.sectionFrom === 'sheetName' ? this.p.name : roleText(row, roles.section);
+    const email = roleText(row, roles.email);
     return email === '' ? { id, name, section } : { id, name, section, email };
   }
 }
