@@ -37,8 +37,8 @@ export function csvLines(rows: readonly (readonly CellValue[])[]): string {
 
 export const CSV_BOM = BOM;
 
-function xlsxCell(v: CellValue): XLSX.CellObject | null {
-  if (v === null) return null;
+function xlsxCell(v: CellValue): XLSX.CellObject | undefined {
+  if (v === null) return undefined;
   if (typeof v === 'number') return { t: 'n', v };
   return { t: 's', v: neutraliseCell(v) };
 }
@@ -48,19 +48,26 @@ function sheetName(name: string): string {
   return name.replace(/[:\\/?*[\]]/g, ' ').slice(0, 31);
 }
 
+/**
+ * Each table becomes a dense SheetJS worksheet (`!data`: one array of cells per row, a blank
+ * left as a hole), built straight from the table's rows: SheetJS writes the same XML for it as
+ * for the sparse "A1"-keyed sheet (tested byte for byte in tests/services/export/xlsxSheet.test.ts)
+ * without a hundred thousand cell keys to build and look up.
+ */
 export function tablesToXlsx(tables: readonly Table[]): Buffer {
   const book = XLSX.utils.book_new();
   for (const table of tables) {
-    const grid = [table.header.map(xlsxCell), ...table.rows.map((r) => r.map(xlsxCell))];
-    const sheet: XLSX.WorkSheet = {};
-    let width = 0;
-    grid.forEach((row, r) => {
-      row.forEach((cell, c) => {
-        if (cell !== null) sheet[XLSX.utils.encode_cell({ r, c })] = cell;
-      });
-      width = Math.max(width, row.length);
-    });
-    sheet['!ref'] = XLSX.utils.encode_range({ s: { r: 0, c: 0 }, e: { r: Math.max(grid.length - 1, 0), c: Math.max(width - 1, 0) } });
+    const data: (XLSX.CellObject | undefined)[][] = new Array<(XLSX.CellObject | undefined)[]>(table.rows.length + 1);
+    data[0] = table.header.map(xlsxCell);
+    let width = table.header.length;
+    for (let r = 0; r < table.rows.length; r++) {
+      const row = table.rows[r] ?? [];
+      const cells = new Array<XLSX.CellObject | undefined>(row.length);
+      for (let c = 0; c < row.length; c++) cells[c] = xlsxCell(row[c] ?? null);
+      data[r + 1] = cells;
+      if (row.length > width) width = row.length;
+    }
+    const sheet = { '!data': data, '!ref': XLSX.utils.encode_range({ s: { r: 0, c: 0 }, e: { r: Math.max(data.length - 1, 0), c: Math.max(width - 1, 0) } }) } as XLSX.WorkSheet;
     XLSX.utils.book_append_sheet(book, sheet, sheetName(table.name));
   }
   return XLSX.write(book, { type: 'buffer', bookType: 'xlsx', compression: true }) as Buffer;

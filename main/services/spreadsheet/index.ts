@@ -21,12 +21,13 @@ import type {
 import type { Gradebook } from '../../../renderer/engine/model';
 import { DEFAULT_TOKENS } from '../../../renderer/engine/grading/parseScore';
 import { importLayoutSchema } from '../schemas';
-import { buildGradebook } from './buildGradebook';
+import { buildGradebook, type BuildResult } from './buildGradebook';
 import { detectLayout } from './detectLayout';
 import { previewMergeBooks, type MergeDetails } from './merge';
 import { hasErrors } from './problems';
-import { cellText, readBook, type RawBook, type ReadOverride } from './readBook';
+import { cellText, readBook, type RawBook, type ReadOverride, type ReadResult } from './readBook';
 import { readColumnBytes, type ColumnReading, type ColumnReadOptions } from './readColumn';
+import { importTextRows } from './textImport';
 import { isTextEncoding } from './textEncoding';
 
 export { columnLetter } from './columnLetter';
@@ -91,9 +92,26 @@ export async function importSpreadsheet(path: string, layout: ImportLayout): Pro
 export function importWorkbookBytes(bytes: Uint8Array, fileName: string, layout: ImportLayout): Result<ImportOutcome> {
   const shape = checkLayoutShape(layout);
   if (!shape.ok) return shape;
-  const read = readLayoutBook(bytes, fileName, layout);
-  if (!read.ok) return read;
-  return finish(read.value, layout, []);
+  const override = layoutOverride(layout);
+  if (!override.ok) return override;
+  // A text table is read row by row when that is provably the same import (textImport.ts).
+  const rowWise = importTextRows(bytes, fileName, override.value, layout);
+  if (rowWise?.kind === 'built') return rowWise.built === null ? refuse(rowWise.earlier) : conclude(rowWise.built, rowWise.earlier);
+  return importBook(rowWise?.kind === 'read' ? rowWise.read : readBook(bytes, fileName, override.value), layout);
+}
+
+/** importWorkbookBytes reading the whole book first, whatever the file: the reference the row-wise text import is tested against. */
+export function importWorkbookWhole(bytes: Uint8Array, fileName: string, layout: ImportLayout): Result<ImportOutcome> {
+  const shape = checkLayoutShape(layout);
+  if (!shape.ok) return shape;
+  const override = layoutOverride(layout);
+  if (!override.ok) return override;
+  return importBook(readBook(bytes, fileName, override.value), layout);
+}
+
+function importBook(read: ReadResult, layout: ImportLayout): Result<ImportOutcome> {
+  if (!read.ok) return refuse([read.problem]);
+  return finish(read.book, layout, []);
 }
 
 export async function detectAndImport(
@@ -104,11 +122,26 @@ export async function detectAndImport(
   return detectAndImportBytes(bytes.value, basename(path));
 }
 
-export function detectAndImportBytes(
-  bytes: Uint8Array,
-  fileName: string,
-): Result<{ gradebook: Gradebook; layout: ImportLayout; problems: readonly ImportProblem[] }> {
-  const read = readBook(bytes, fileName);
+type Detected = Result<{ gradebook: Gradebook; layout: ImportLayout; problems: readonly ImportProblem[] }>;
+
+export function detectAndImportBytes(bytes: Uint8Array, fileName: string): Detected {
+  // A text table is read row by row when that is provably the same import (textImport.ts).
+  const rowWise = importTextRows(bytes, fileName, {}, null);
+  if (rowWise?.kind === 'built') {
+    // No usable sheet: the detection problems already say why; an import would only add noise.
+    if (rowWise.built === null) return refuse(rowWise.earlier);
+    const outcome = conclude(rowWise.built, rowWise.earlier);
+    return outcome.ok ? { ok: true, value: { ...outcome.value, layout: rowWise.layout } } : outcome;
+  }
+  return detectAndImportBook(rowWise?.kind === 'read' ? rowWise.read : readBook(bytes, fileName));
+}
+
+/** detectAndImportBytes reading the whole book first, whatever the file: the reference the row-wise text import is tested against. */
+export function detectAndImportWhole(bytes: Uint8Array, fileName: string): Detected {
+  return detectAndImportBook(readBook(bytes, fileName));
+}
+
+function detectAndImportBook(read: ReadResult): Detected {
   if (!read.ok) return refuse([read.problem]);
   const detection = detectLayout(read.book, DEFAULT_TOKENS);
   // No usable sheet: the detection problems already say why; an import would only add noise.
@@ -144,7 +177,10 @@ export async function previewMerge(current: CourseProject, path: string, layout:
 }
 
 function finish(book: RawBook, layout: ImportLayout, earlier: readonly ImportProblem[]): Result<ImportOutcome> {
-  const built = buildGradebook(book, layout);
+  return conclude(buildGradebook(book, layout), earlier);
+}
+
+function conclude(built: BuildResult, earlier: readonly ImportProblem[]): Result<ImportOutcome> {
   const problems = [...earlier, ...built.problems];
   if (hasErrors(problems)) return refuse(problems);
   return { ok: true, value: { gradebook: built.gradebook, problems } };
@@ -162,15 +198,11 @@ function checkLayoutShape(layout: unknown): Result<null> {
   return { ok: false, code: 'bad-input', message: `The import layout is malformed at ${issue.path.join('.') || 'its top level'}: ${issue.message}. Detect the layout again in the preview.` };
 }
 
-function readLayoutBook(bytes: Uint8Array, fileName: string, layout: ImportLayout): Result<RawBook> {
-  const checked = checkOverride({
+function layoutOverride(layout: ImportLayout): Result<ReadOverride> {
+  return checkOverride({
     ...(layout.encoding !== undefined ? { encoding: layout.encoding } : {}),
     ...(layout.delimiter !== undefined ? { delimiter: layout.delimiter } : {}),
   });
-  if (!checked.ok) return checked;
-  const read = readBook(bytes, fileName, checked.value);
-  if (!read.ok) return refuse([read.problem]);
-  return { ok: true, value: read.book };
 }
 
 function checkOverride(override: ReadOverride | undefined): Result<ReadOverride> {

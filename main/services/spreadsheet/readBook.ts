@@ -78,25 +78,46 @@ const TEXT_EXTENSIONS = new Set(['csv', 'tsv', 'txt', 'tab']);
 const WORKBOOK_EXTENSIONS = new Set(['xlsx', 'xlsm', 'xls', 'ods']);
 
 export function readBook(bytes: Uint8Array, fileName: string, override: ReadOverride = {}): ReadResult {
+  const route = routeOf(bytes, fileName);
+  switch (route.kind) {
+    case 'refused':
+      return route.result;
+    case 'zip':
+      return readZip(bytes, fileName);
+    case 'compound':
+      return readCompound(bytes, fileName);
+    case 'text':
+      return readText(bytes, fileName, route.ext, override);
+  }
+}
+
+type Route = { kind: 'refused'; result: ReadResult } | { kind: 'zip' } | { kind: 'compound' } | { kind: 'text'; ext: string };
+
+/** What the bytes are read as: decided from the bytes first, the name's extension second. */
+function routeOf(bytes: Uint8Array, fileName: string): Route {
   const ext = extensionOf(fileName);
   if (bytes.length === 0 || isBlankText(bytes)) {
-    return fail('empty-file', `The file "${fileName}" is empty. Choose the gradebook file that holds the scores.`);
+    return refused('empty-file', `The file "${fileName}" is empty. Choose the gradebook file that holds the scores.`);
   }
-  if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04])) return readZip(bytes, fileName);
+  if (startsWith(bytes, [0x50, 0x4b, 0x03, 0x04])) return { kind: 'zip' };
   if (startsWith(bytes, [0x50, 0x4b, 0x05, 0x06])) {
-    return fail('empty-file', `The file "${fileName}" is an empty archive with nothing in it. Choose the gradebook file that holds the scores.`);
+    return refused('empty-file', `The file "${fileName}" is an empty archive with nothing in it. Choose the gradebook file that holds the scores.`);
   }
-  if (startsWith(bytes, [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])) return readCompound(bytes, fileName);
+  if (startsWith(bytes, [0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1])) return { kind: 'compound' };
   if (WORKBOOK_EXTENSIONS.has(ext)) {
-    return fail(
+    return refused(
       'wrong-file-type',
       `The file "${fileName}" is named .${ext} but its contents are not a spreadsheet workbook (it may be damaged or renamed). Choose a ${SUPPORTED} file.`,
     );
   }
   if (!TEXT_EXTENSIONS.has(ext)) {
-    return fail('wrong-file-type', `The file "${fileName}" is not a spreadsheet Weighbridge can import. Choose a ${SUPPORTED} file.`);
+    return refused('wrong-file-type', `The file "${fileName}" is not a spreadsheet Weighbridge can import. Choose a ${SUPPORTED} file.`);
   }
-  return readText(bytes, fileName, ext, override);
+  return { kind: 'text', ext };
+}
+
+function refused(code: string, message: string): Route {
+  return { kind: 'refused', result: fail(code, message) };
 }
 
 function readZip(bytes: Uint8Array, fileName: string): ReadResult {
@@ -259,7 +280,17 @@ function textOf(raw: object): string | null {
   return typeof w === 'string' ? w : null;
 }
 
-function readText(bytes: Uint8Array, fileName: string, ext: string, override: ReadOverride): ReadResult {
+/** A text file decoded and checked, ready to parse. */
+interface TextStart {
+  readonly text: string;
+  readonly encoding: TextEncoding;
+  readonly sheetName: string;
+  readonly problems: readonly ImportProblem[];
+  readonly delimiter: string;
+  readonly ext: string;
+}
+
+function startText(bytes: Uint8Array, fileName: string, ext: string, override: ReadOverride): { ok: true; start: TextStart } | { ok: false; result: ReadResult } {
   let encoding: TextEncoding | undefined = override.encoding;
   let text: string;
   try {
@@ -267,10 +298,10 @@ function readText(bytes: Uint8Array, fileName: string, ext: string, override: Re
     if (encoding === undefined) ({ encoding, text } = detectAndDecode(bytes));
     else text = decodeText(bytes, encoding);
   } catch (e) {
-    return fail('bad-encoding', `The file "${fileName}" cannot be read as ${encoding ?? 'text'} (${errorText(e)}). Choose another encoding.`);
+    return { ok: false, result: fail('bad-encoding', `The file "${fileName}" cannot be read as ${encoding ?? 'text'} (${errorText(e)}). Choose another encoding.`) };
   }
   if (looksBinary(text)) {
-    return fail('wrong-file-type', `The file "${fileName}" does not hold text, so it is not a .${ext} table (it may be damaged or renamed). Choose a ${SUPPORTED} file.`);
+    return { ok: false, result: fail('wrong-file-type', `The file "${fileName}" does not hold text, so it is not a .${ext} table (it may be damaged or renamed). Choose a ${SUPPORTED} file.`) };
   }
   const sheetName = baseName(fileName);
   const problems: ImportProblem[] = [];
@@ -279,43 +310,126 @@ function readText(bytes: Uint8Array, fileName: string, ext: string, override: Re
   }
   const wanted = override.delimiter;
   if (wanted !== undefined && (wanted.length !== 1 || wanted === '"' || wanted === '\r' || wanted === '\n')) {
-    return fail('bad-delimiter', `The delimiter ${JSON.stringify(wanted)} cannot be used: choose one character such as "," ";" or a tab.`);
+    return { ok: false, result: fail('bad-delimiter', `The delimiter ${JSON.stringify(wanted)} cannot be used: choose one character such as "," ";" or a tab.`) };
   }
-  const parsed = Papa.parse<string[]>(text, {
-    delimiter: wanted ?? (ext === 'tsv' || ext === 'tab' ? '\t' : ''),
-    delimitersToGuess: [',', ';', '\t'],
-    header: false,
-    dynamicTyping: false,
-    skipEmptyLines: false,
-  });
-  for (const err of parsed.errors) {
-    if (err.type === 'Delimiter') continue; // one column: nothing to guess, ',' is as good as any
-    const row = typeof err.row === 'number' ? err.row + 1 : undefined;
-    return fail(
-      'malformed-text',
-      `Sheet "${sheetName}"${row === undefined ? '' : `, row ${row}`}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`,
-    );
-  }
-  // papaparse's row arrays are ours: blanks become null in place rather than in a copy.
-  const rows: Cell[][] = [];
-  for (const src of parsed.data as unknown[]) {
-    if (!Array.isArray(src)) {
-      rows.push([]);
-      continue;
-    }
-    const row = src as unknown[];
-    for (let c = 0; c < row.length; c++) {
-      const v = row[c];
-      if (v === '' || typeof v !== 'string') row[c] = null;
-    }
-    rows.push(row as Cell[]);
-  }
-  const delimiter = parsed.meta.delimiter;
-  const format = ext === 'tsv' || ext === 'tab' || (delimiter === '\t' && ext !== 'csv') ? 'tsv' : 'csv';
-  return { ok: true, book: { format, encoding, delimiter, sheets: [finishSheet(sheetName, rows)], problems } };
+  const delimiter = wanted ?? (ext === 'tsv' || ext === 'tab' ? '\t' : '');
+  return { ok: true, start: { text, encoding, sheetName, problems, delimiter, ext } };
 }
 
-function finishSheet(name: string, rows: Cell[][]): RawSheet {
+/** papaparse's options for every text table: the delimiter given, else guessed among , ; tab. */
+function papaOptions(start: TextStart): Papa.ParseConfig<string[]> {
+  return { delimiter: start.delimiter, delimitersToGuess: [',', ';', '\t'], header: false, dynamicTyping: false, skipEmptyLines: false };
+}
+
+/** The first parse error that stops the import (a one-column file has no delimiter to guess: not one). */
+function malformed(start: TextStart, errors: readonly Papa.ParseError[], row: (e: Papa.ParseError) => number | undefined): ReadResult | null {
+  for (const err of errors) {
+    if (err.type === 'Delimiter') continue; // one column: nothing to guess, ',' is as good as any
+    const at = row(err);
+    return fail(
+      'malformed-text',
+      `Sheet "${start.sheetName}"${at === undefined ? '' : `, row ${at}`}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`,
+    );
+  }
+  return null;
+}
+
+function textFormat(start: TextStart, delimiter: string): RawBook['format'] {
+  const ext = start.ext;
+  return ext === 'tsv' || ext === 'tab' || (delimiter === '\t' && ext !== 'csv') ? 'tsv' : 'csv';
+}
+
+/** papaparse's row arrays are ours: blanks become null in place rather than in a copy. */
+function cellsOf(src: unknown): Cell[] {
+  if (!Array.isArray(src)) return [];
+  const row = src as unknown[];
+  for (let c = 0; c < row.length; c++) {
+    const v = row[c];
+    if (v === '' || typeof v !== 'string') row[c] = null;
+  }
+  return row as Cell[];
+}
+
+function readText(bytes: Uint8Array, fileName: string, ext: string, override: ReadOverride): ReadResult {
+  const started = startText(bytes, fileName, ext, override);
+  if (!started.ok) return started.result;
+  const start = started.start;
+  const parsed = Papa.parse<string[]>(start.text, papaOptions(start));
+  const refusal = malformed(start, parsed.errors, (err) => (typeof err.row === 'number' ? err.row + 1 : undefined));
+  if (refusal !== null) return refusal;
+  const rows: Cell[][] = [];
+  for (const src of parsed.data as unknown[]) rows.push(cellsOf(src));
+  const delimiter = parsed.meta.delimiter;
+  return { ok: true, book: { format: textFormat(start, delimiter), encoding: start.encoding, delimiter, sheets: [finishSheet(start.sheetName, rows)], problems: start.problems } };
+}
+
+/** A text table read by `readTextRows`: the book without its rows. */
+export interface TextTable {
+  readonly format: RawBook['format'];
+  readonly encoding: TextEncoding;
+  readonly delimiter: string;
+  /** The name of its only sheet (the file name without extension). */
+  readonly sheet: string;
+  readonly problems: readonly ImportProblem[];
+}
+
+/**
+ * Called with each row (0-based index `r`, blanks as null, trailing blanks not yet trimmed) as it
+ * is parsed, and the table it belongs to (the same object every call); the row array is the
+ * callee's. Returning false stops the reading (the result is then `stopped`).
+ */
+export type RowSink = (row: Cell[], r: number, table: TextTable) => boolean | void;
+
+export type TextRowsResult =
+  | { readonly ok: true; readonly table: TextTable; readonly rows: number; readonly stopped: boolean }
+  | { readonly ok: false; readonly problem: ImportProblem };
+
+/**
+ * A text table (.csv/.tsv) read row by row: the same decoding, delimiter, rows and refusals as
+ * `readBook` (papaparse's step mode over the same text and options; tested equal in
+ * tests/services/spreadsheet/textRows.test.ts), without holding the grid. Null when `readBook`
+ * would not read the bytes as text (a workbook, or refused before decoding): call readBook then.
+ * Rows already handed on before a malformed row are not taken back: the caller discards them.
+ */
+export function readTextRows(bytes: Uint8Array, fileName: string, override: ReadOverride, onRow: RowSink): TextRowsResult | null {
+  const route = routeOf(bytes, fileName);
+  if (route.kind !== 'text') return null;
+  const started = startText(bytes, fileName, route.ext, override);
+  if (!started.ok) return started.result.ok ? null : started.result;
+  const start = started.start;
+  let r = 0;
+  let refusal: ReadResult | null = null;
+  let stopped = false;
+  let table: TextTable | null = null;
+  Papa.parse<string[]>(start.text, {
+    ...papaOptions(start),
+    step: (result, parser) => {
+      // The errors of a step are those met while parsing its row (papaparse pushes each error
+      // before the row it belongs to), so this row's number is the whole-text parse's err.row + 1.
+      refusal = malformed(start, result.errors, () => r + 1);
+      if (refusal !== null) {
+        parser.abort();
+        return;
+      }
+      // The delimiter given or guessed: papaparse decides it on the whole text before the first row.
+      table ??= { format: textFormat(start, result.meta.delimiter), encoding: start.encoding, delimiter: result.meta.delimiter, sheet: start.sheetName, problems: start.problems };
+      if (onRow(cellsOf(result.data), r, table) === false) {
+        stopped = true;
+        parser.abort();
+        return;
+      }
+      r++;
+    },
+  });
+  const refused: ReadResult | null = refusal;
+  if (refused !== null) return refused;
+  const read: TextTable | null = table;
+  if (read === null) return fail('malformed-text', `Sheet "${start.sheetName}": the file has no rows to read. Export the file again.`); // not met: the text is not blank
+  return { ok: true, table: read, rows: r, stopped };
+}
+
+/** Trailing blank cells and rows trimmed (in place), and the width worked out. */
+export function finishSheet(name: string, rows: Cell[][]): RawSheet {
   for (const row of rows) while (row.length > 0 && isBlank(row[row.length - 1])) row.pop();
   while (rows.length > 0 && (rows[rows.length - 1]?.length ?? 0) === 0) rows.pop();
   let width = 0;
@@ -348,7 +462,7 @@ function corrupt(fileName: string): ReadResult {
   return fail('corrupt-file', `The file "${fileName}" could not be read: it looks damaged or incomplete (its parts could not be unpacked and read as a workbook). ${FIX_SAVE_AGAIN}`);
 }
 
-function fail(code: string, message: string): ReadResult {
+function fail(code: string, message: string): { readonly ok: false; readonly problem: ImportProblem } {
   return { ok: false, problem: fileProblem('error', code, message) };
 }
 

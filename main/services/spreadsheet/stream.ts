@@ -25,15 +25,14 @@ import { open, stat } from 'node:fs/promises';
 import { basename } from 'node:path';
 import { Readable } from 'node:stream';
 import Papa from 'papaparse';
-import type { ColumnLayout, ImportLayout, ImportProblem, Result, TextEncoding } from '../../../renderer/bridge/contract';
+import type { ImportLayout, ImportProblem, Result, TextEncoding } from '../../../renderer/bridge/contract';
 import type { Assessment, Score, Student } from '../../../renderer/engine/model';
-import { DEFAULT_TOKENS, scoreReader } from '../../../renderer/engine/grading/parseScore';
-import { buildGradebook, identityText } from './buildGradebook';
-import { columnLetter } from './columnLetter';
+import { DEFAULT_TOKENS } from '../../../renderer/engine/grading/parseScore';
+import { planGradebook } from './buildGradebook';
 import { detectLayout } from './detectLayout';
-import { SUMMARY_ROW_LABEL } from './headerWords';
-import { problemAt, quote } from './problems';
-import { baseName, cellText, isBlank, readBook, type Cell } from './readBook';
+import { problemAt } from './problems';
+import { baseName, isBlank, readBook, type Cell } from './readBook';
+import { StudentRows, type PlannedSheet } from './studentRows';
 import { detectEncoding } from './textEncoding';
 
 /** Bytes read for layout detection, delimiter and line-break guessing. */
@@ -65,7 +64,8 @@ interface StreamStart {
   readonly newline: string;
   readonly sheet: string;
   readonly assessments: readonly Assessment[];
-  readonly columns: readonly ColumnLayout[];
+  readonly assessmentIndex: ReadonlyMap<string, { readonly index: number }>;
+  readonly planned: PlannedSheet;
   readonly dataStart: number;
   readonly problems: readonly ImportProblem[];
 }
@@ -157,9 +157,10 @@ function startFrom(prefix: Uint8Array, fileName: string, complete: boolean, forc
   // The sheet-level checks of the import (roles, points possible, duplicate headers) on the rows
   // above the students; 'no-students' is decided after the last row.
   const headOnly = { ...book, sheets: [{ ...sheet, rows: sheet.rows.slice(0, dataStart) }] };
-  const built = buildGradebook(headOnly, detection.layout);
-  const sheetProblems = built.problems.filter((p) => p.code !== 'no-students');
-  if (sheetProblems.some((p) => p.severity === 'error')) return null;
+  const sheetProblems: ImportProblem[] = [];
+  const plan = planGradebook(headOnly, detection.layout, sheetProblems);
+  const planned = plan.sheets[0];
+  if (planned === undefined || sheetProblems.some((p) => p.severity === 'error')) return null;
   const text = new TextDecoder(guess.encoding).decode(bytes);
   const newline = Papa.parse<string[]>(text, { delimiter: book.delimiter, preview: 1 }).meta.linebreak;
   // book.problems would only say the prefix has replaced characters: the whole file decides that.
@@ -170,8 +171,9 @@ function startFrom(prefix: Uint8Array, fileName: string, complete: boolean, forc
     delimiter: book.delimiter,
     newline,
     sheet: sheet.name,
-    assessments: built.gradebook.assessments,
-    columns: sl.columns,
+    assessments: plan.assessments,
+    assessmentIndex: plan.assessmentIndex,
+    planned,
     dataStart,
     problems: [...detection.problems, ...sheetProblems],
   };
@@ -179,7 +181,8 @@ function startFrom(prefix: Uint8Array, fileName: string, complete: boolean, forc
 
 async function readRows(path: string, start: StreamStart, sink: StreamSink): Promise<Result<StreamImportOutcome> | 'not-utf-8'> {
   const fileName = basename(path);
-  const reader = createRowReader(start);
+  const problems: ImportProblem[] = [];
+  const reader = new StudentRows(start.planned, start.layout, start.assessments, start.assessmentIndex, new Map(), problems);
   sink.begin(start.assessments, start.layout);
   let notUtf8 = false;
   let replaced = false;
@@ -221,7 +224,11 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
         }
         const cells = result.data as unknown as Cell[];
         for (let c = 0; c < cells.length; c++) if (cells[c] === '') cells[c] = null;
-        if (r >= start.dataStart) reader.read(r, cells, sink);
+        if (r >= start.dataStart) {
+          const got = reader.row(r, cells);
+          // After any error nothing is imported: the rows are still read for their problems.
+          if (got !== null && reader.errors === 0) sink.row(got.student, got.scores);
+        }
         r++;
       },
       complete: () => resolve(),
@@ -234,115 +241,14 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
     readProblems.push(problemAt('warning', 'replaced-characters', { sheet: start.sheet }, `some characters could not be decoded as ${start.encoding} and show as "\uFFFD". Choose another encoding in the preview.`));
   }
   if (malformed !== null) return { ok: false, code: 'bad-input', message: malformed, problems: [{ severity: 'error', code: 'malformed-text', message: malformed }] };
-  const problems = [...readProblems, ...start.problems, ...reader.finish()];
-  const errors = problems.filter((p) => p.severity === 'error');
+  reader.finish();
+  const all = [...readProblems, ...start.problems, ...problems];
+  const errors = all.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
     const first = errors[0]!;
     const message = errors.length === 1 ? first.message : `${errors.length} problems stop the import. The first: ${first.message}`;
-    return { ok: false, code: 'bad-input', message, problems };
+    return { ok: false, code: 'bad-input', message, problems: all };
   }
   const encodingLayout: ImportLayout = { ...start.layout, encoding: start.encoding };
-  return { ok: true, value: { layout: encodingLayout, assessments: start.assessments, problems, students: reader.count() } };
-}
-
-interface RowReader {
-  read(r: number, row: readonly Cell[], sink: StreamSink): void;
-  finish(): ImportProblem[];
-  count(): number;
-}
-
-/** buildGradebook's readStudents for one sheet whose assessments are the gradebook's, in order. */
-function createRowReader(start: StreamStart): RowReader {
-  const { sheet, columns, assessments, layout } = start;
-  const first = (role: ColumnLayout['role']) => columns.find((c) => c.role === role);
-  const idCol = first('id')!;
-  const nameCol = first('name');
-  const firstCol = first('firstName');
-  const lastCol = first('lastName');
-  const sectionCol = first('section');
-  const emailCol = first('email');
-  const personCols = [idCol, nameCol, firstCol, lastCol].filter((c): c is ColumnLayout => c !== undefined);
-  const cells = columns.filter((c) => c.role === 'assessment').map((column, i) => ({ column, letter: columnLetter(column.index), possible: assessments[i]!.possible }));
-  const read = scoreReader(layout.tokens);
-  const idLetter = columnLetter(idCol.index);
-  const idSeen = new Map<string, number>();
-  const problems: ImportProblem[] = [];
-  const scores: Score[] = [];
-  let count = 0;
-  /** Some error so far: nothing will be imported, rows are still read for their problems. */
-  let failed = false;
-  let rowError = false;
-  const text = (row: readonly Cell[], c: ColumnLayout | undefined) => (c === undefined ? '' : identityText(row[c.index]));
-
-  function readScore(cell: Cell, c: (typeof cells)[number], rowNo: number): Score {
-    const parsed = read(cell, c.possible);
-    if (parsed.ok) {
-      const score = parsed.score;
-      if (score.kind !== 'earned' || score.points <= c.possible) return score;
-      const t = cellText(cell);
-      problems.push(
-        problemAt('warning', 'above-possible', { sheet, row: rowNo, column: c.letter, header: c.column.header, value: t },
-          `${quote(t.trim())} is above the ${c.possible} points possible. It is kept as entered; it counts beyond full marks only if the grading plan marks this assessment as extra credit — otherwise correct the cell.`),
-      );
-      return score;
-    }
-    const t = cellText(cell);
-    const at = { sheet, row: rowNo, column: c.letter, header: c.column.header, value: t };
-    rowError = true;
-    if (/^\s*[-−]\s*\d/.test(t)) problems.push(problemAt('error', 'negative-score', at, `${quote(t.trim())} is negative; scores cannot be below 0. Correct the cell.`));
-    else problems.push(problemAt('error', 'unreadable-score', at, `${parsed.message} Correct the cell, or add the word to the score tokens.`));
-    return { kind: 'missing' };
-  }
-
-  return {
-    read(r, row, sink) {
-      let blank = true;
-      for (const cell of row) if (!isBlank(cell)) { blank = false; break; }
-      if (blank) return;
-      const rowNo = r + 1;
-      const id = identityText(row[idCol.index]);
-      if (id === '' || SUMMARY_ROW_LABEL.test(id)) {
-        let label = '';
-        for (const c of personCols) if ((label = identityText(row[c.index])) !== '') break;
-        if (label === '') label = cellText(row.find((cell) => !isBlank(cell))).trim();
-        if (SUMMARY_ROW_LABEL.test(label)) {
-          problems.push(problemAt('warning', 'summary-row-skipped', { sheet, row: rowNo, value: label }, `this row (${quote(label)}) looks like a summary of the students, not a student, and was skipped.`));
-          return;
-        }
-        if (id === '') {
-          failed = true;
-          problems.push(problemAt('error', 'blank-id', { sheet, row: rowNo, column: idLetter, header: idCol.header, value: id }, `the student ID is blank${label === '' ? '' : ` (row of ${quote(label)})`}. Fill in the ID or delete the row.`));
-          return;
-        }
-      }
-      const dup = idSeen.get(id);
-      if (dup !== undefined) {
-        failed = true;
-        problems.push(problemAt('error', 'duplicate-id', { sheet, row: rowNo, column: idLetter, header: idCol.header, value: id }, `student ID ${quote(id)} is already used on row ${dup}. Give each student one row with a unique ID.`));
-        return;
-      }
-      idSeen.set(id, rowNo);
-      rowError = false;
-      scores.length = 0;
-      for (const c of cells) scores.push(readScore(row[c.column.index] ?? null, c, rowNo));
-      count++;
-      if (rowError) failed = true;
-      if (failed) return;
-      const full = text(row, nameCol);
-      const firstName = text(row, firstCol);
-      const last = text(row, lastCol);
-      const name = full !== '' ? full : last !== '' && firstName !== '' ? `${last}, ${firstName}` : last !== '' ? last : firstName;
-      const email = text(row, emailCol);
-      const section = text(row, sectionCol);
-      sink.row(email === '' ? { id, name, section } : { id, name, section, email }, scores);
-    },
-    finish() {
-      if (count === 0 && !problems.some((q) => q.severity === 'error') && !start.problems.some((q) => q.severity === 'error')) {
-        const headerRow = (start.layout.sheets[0]?.headerRow ?? 0) + 1;
-        problems.push(problemAt('error', 'no-students', { sheet }, `there are no student rows below the header on row ${headerRow}. Add the students or choose the right header row.`));
-      }
-      return problems;
-    },
-    count: () => count,
-  };
+  return { ok: true, value: { layout: encodingLayout, assessments: start.assessments, problems: all, students: reader.count } };
 }
