@@ -293,8 +293,18 @@ async function exportXlsx(book: Gradebook) {
     const boundary = argSchemas.exportFinals;
     if (!boundary.safeParse([request]).success) throw new Error('export: the bench request does not pass the IPC boundary');
     log('export xlsx: measuring');
+    // The app's path after the transport: the IPC boundary validates the request, then writeExport.
     const fig = await sideBySide(
       quick ? 5 : 5,
+      async () => {
+        if (!boundary.safeParse([request]).success) throw new Error('export: the request did not pass the IPC boundary');
+        const r = await writeExport(request);
+        if (!r.ok) throw new Error(`export failed: ${r.message}`);
+      },
+      bare,
+    );
+    const serviceOnly = await sideBySide(
+      quick ? 3 : 3,
       async () => {
         const r = await writeExport(request);
         if (!r.ok) throw new Error(`export failed: ${r.message}`);
@@ -321,9 +331,11 @@ async function exportXlsx(book: Gradebook) {
       exportXlsx: {
         rows: book.students.length,
         ...fig,
-        measures: 'writeExport: what the IPC handler calls after the boundary has validated the request (grades the project with the engine, builds the tables, writes the .xlsx atomically)',
+        measures: 'the app’s export after the IPC transport: the boundary’s validation of the request (argSchemas.exportFinals) + writeExport (grades the validated project with the engine, builds the tables, writes the .xlsx atomically)',
         baseline: 'XLSX.write of the same finals table (aoa_to_sheet + write, compressed)',
         boundaryValidationMs: round(boundaryMs),
+        writeExportOnlyMs: serviceOnly.ms,
+        writeExportOnlyRatio: serviceOnly.ratio,
         exportFinalsMs: direct.ms,
         exportFinalsRatio: direct.ratio,
         plainGradeCourseMs: round(plainGradeMs),
@@ -466,7 +478,7 @@ function targets(r: Record<string, unknown>): Record<string, { target: string; v
     incremental: t('incremental < full recompute', g('incremental')['ratio'], (g('incremental')['ratio'] ?? Infinity) < 1, 'incremental update not cheaper than a full recompute'),
     importXlsx: t('ratio ≤ 1.3 to XLSX.read', ix['ratio'], (ix['ratio'] ?? Infinity) <= 1.3, 'the import builds typed Score cells, detects the layout and validates every cell after the library read; see bench/LATEST.md'),
     importCsv: t('ratio ≤ 1.3 to the bare parse', ic['ratio'], (ic['ratio'] ?? Infinity) <= 1.3, 'the import is read row by row; what remains above the bare parse is reading every score cell (one scoreReader call per cell, about 30 ns each here) and keeping the gradebook; see bench/LATEST.md'),
-    exportXlsx: t('ratio ≤ 1.3 to XLSX.write (writeExport, after the IPC boundary)', ex['ratio'], (ex['ratio'] ?? Infinity) <= 1.3, 'writeExport grades the course (fast path) and writes the sheet; see bench/LATEST.md'),
+    exportXlsx: t('ratio ≤ 1.3 to XLSX.write (boundary validation + writeExport)', ex['ratio'], (ex['ratio'] ?? Infinity) <= 1.3, 'the boundary validates every score of the project and writeExport grades the course (fast path) before the sheet is written; see bench/LATEST.md'),
     cliMillion: t('peak RSS < 2048 MiB', cli['peakRssMiB'], cli['ok'] === (true as unknown as number) && (cli['peakRssMiB'] ?? Infinity) < 2048, 'the CLI grade run did not finish under the limit; see bench/LATEST.md'),
     streamingBenchOnly: t('peak RSS < 2048 MiB (bench-only streaming path)', g('streamingBenchOnly')['peakRssMiB'], g('streamingBenchOnly')['ok'] === (true as unknown as number) && (g('streamingBenchOnly')['peakRssMiB'] ?? Infinity) < 2048, 'streaming run failed'),
     renderer: t(

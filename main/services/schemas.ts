@@ -65,6 +65,39 @@ export const scoreSchema = z.discriminatedUnion('kind', [
   z.strictObject({ kind: z.literal('pending') }),
 ]);
 
+/**
+ * True only for a value scoreSchema certainly accepts: a plain object whose own keys are exactly
+ * `kind` (missing / excused / pending) or `kind` and a finite `points` (earned). It may refuse
+ * something zod would accept (an object with another prototype, say); the grid is then parsed by
+ * zod, which decides. Property-tested never to accept what scoreSchema refuses.
+ */
+export function isPlainScore(x: unknown): boolean {
+  if (typeof x !== 'object' || x === null) return false;
+  const proto: unknown = Object.getPrototypeOf(x);
+  if (proto !== Object.prototype && proto !== null) return false;
+  const keys = Object.keys(x);
+  const cell = x as { kind?: unknown; points?: unknown };
+  if (cell.kind === 'earned') {
+    return keys.length === 2 && Object.hasOwn(x, 'kind') && Object.hasOwn(x, 'points') && typeof cell.points === 'number' && Number.isFinite(cell.points);
+  }
+  return keys.length === 1 && Object.hasOwn(x, 'kind') && (cell.kind === 'missing' || cell.kind === 'excused' || cell.kind === 'pending');
+}
+
+const zodScoreGrid = z.array(z.array(scoreSchema));
+
+/**
+ * The score grid (one row per student): every cell checked by isPlainScore — a course holds up to a
+ * million cells and zod's per-cell parse costs about ten times as much — and, when any cell is not
+ * plainly valid, the whole grid parsed by zod for its exact issues (paths and messages).
+ */
+const scoreGridSchema = z.unknown().transform((grid, ctx): Score[][] => {
+  if (Array.isArray(grid) && grid.every((row) => Array.isArray(row) && row.every(isPlainScore))) return grid as Score[][];
+  const parsed = zodScoreGrid.safeParse(grid);
+  if (parsed.success) return parsed.data;
+  for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, code: 'custom', message: issue.message, path: issue.path });
+  return z.NEVER;
+});
+
 export const studentSchema = z.strictObject({
   id: nonEmpty,
   name: z.string(),
@@ -93,7 +126,7 @@ export const gradebookSchema = z
   .strictObject({
     students: z.array(studentSchema),
     assessments: z.array(assessmentSchema),
-    scores: z.array(z.array(scoreSchema)),
+    scores: scoreGridSchema,
   })
   .superRefine((book, ctx) => {
     const a = book.assessments.length;
