@@ -31,6 +31,15 @@ export const MAX_COLUMNS = 16_384;
 /** Column warnings of one kind shown per sheet before the rest are counted in one summary. */
 const COLUMN_WARNINGS_SHOWN = 10;
 const CONTENT_SAMPLE_ROWS = 200;
+
+/**
+ * How many rows from the top of a sheet detection may read cell by cell: the header is found in
+ * rows < HEADER_SEARCH_ROWS (the widest row among the first 2·HEADER_SEARCH_ROWS), points possible
+ * at most 3 rows below it, and each column's content sampled over CONTENT_SAMPLE_ROWS rows from the
+ * first data row. Below these rows detection only asks which columns and rows are filled at all.
+ * The row-at-a-time text import (textImport.ts) detects on this many rows.
+ */
+export const ROWS_READ_FROM_TOP = Math.max(2 * HEADER_SEARCH_ROWS, HEADER_SEARCH_ROWS + 3 + CONTENT_SAMPLE_ROWS);
 const NO_TOKENS: ScoreTokens = { excused: [], missing: [], pending: [] };
 
 export interface Detection {

@@ -22,12 +22,12 @@ import type { ImportLayout, ImportProblem } from '../../../renderer/bridge/contr
 import type { Gradebook, Score, Student } from '../../../renderer/engine/model';
 import { DEFAULT_TOKENS } from '../../../renderer/engine/grading/parseScore';
 import { planGradebook, type BuildResult } from './buildGradebook';
-import { detectLayout, MAX_COLUMNS } from './detectLayout';
+import { detectLayout, MAX_COLUMNS, ROWS_READ_FROM_TOP } from './detectLayout';
 import { finishSheet, isBlank, readTextRows, type Cell, type RawBook, type ReadOverride, type ReadResult, type TextTable } from './readBook';
 import { allBlank, StudentRows } from './studentRows';
 
-/** Rows read before the layout is detected: more than detectLayout reads from the top of a sheet. */
-export const HEAD_ROWS = 240;
+/** Rows read before the layout is detected: all detectLayout reads cell by cell from the top of a sheet. */
+export const HEAD_ROWS = ROWS_READ_FROM_TOP;
 
 export type TextImport =
   /** The file was read whole (it fits in the head, or could not be read): continue as for readBook. */
