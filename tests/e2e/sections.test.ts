@@ -24,6 +24,9 @@ async function showSections(page: Page): Promise<void> {
   await page.getByRole('tab', { name: /Sections/ }).click();
   await page.getByRole('heading', { level: 1, name: 'Sections' }).waitFor();
   await page.locator('figure[data-chart="boxplot"] svg').waitFor();
+  // The comparison and the item analysis follow the first paint (computed in slices).
+  await page.getByTestId('comparison').waitFor();
+  await page.getByTestId('item-analysis').waitFor();
 }
 
 interface Cell { stat: string; section: string; value: string | null; text: string; defined: boolean }
@@ -160,6 +163,9 @@ describe('Sections workspace (browser)', () => {
   });
 
   it('every chart is keyboard reachable, named, and has its numbers as a table', async () => {
+    // The tables are built when their toggle opens.
+    const toggles = app.page.locator('.wb-chart-table > summary');
+    for (const summary of await toggles.all()) await summary.click();
     const figures = await app.page.locator('figure.wb-chart').evaluateAll((els) =>
       els.map((e) => ({ chart: e.getAttribute('data-chart'), tabindex: e.getAttribute('tabindex'), labelledBy: e.getAttribute('aria-labelledby'), tables: e.parentElement?.querySelectorAll('details table').length ?? 0 })),
     );
@@ -169,6 +175,8 @@ describe('Sections workspace (browser)', () => {
       expect(f.labelledBy).not.toBeNull();
       expect(f.tables).toBe(1);
     }
+    for (const summary of await toggles.all()) await summary.click();
+    expect(await app.page.locator('.wb-chart-table table').count()).toBe(0);
   });
 
   it('histogram: the bins drawn are histogram()’s bins for each rule', async () => {
@@ -207,8 +215,11 @@ describe('Sections workspace (browser)', () => {
     const s = stats();
     const fig = app.page.locator('figure[data-chart="ecdf"]');
     for (const sec of s.sections) {
-      const steps = await fig.locator(`g[aria-label="ECDF steps, section ${sec.section}"] line`).count();
-      expect(steps, sec.section).toBe(new Set(sec.values).size);
+      // One step-after path per section: its levels are 0 and one share per distinct value, so the
+      // distinct y coordinates of its vertices count the steps drawn (plus the 0 level).
+      const d = await fig.locator(`g[aria-label="ECDF steps, section ${sec.section}"] path`).getAttribute('d');
+      const ys = new Set([...(d ?? '').matchAll(/[ML]\s*(-?[\d.]+)[ ,](-?[\d.]+)/g)].map((m) => m[2]));
+      expect(ys.size - 1, sec.section).toBe(new Set(sec.values).size);
     }
     const slider = app.page.getByLabel('Mark at');
     const t = 70;
@@ -227,6 +238,12 @@ describe('Sections workspace (browser)', () => {
 
   it('comparison and item analysis show the engine’s words and numbers', async () => {
     const s = stats();
+    // Their "computing" live regions are polite and empty once the numbers are shown.
+    for (const id of ['comparison-status', 'item-analysis-status']) {
+      const status = app.page.getByTestId(id);
+      expect(await status.getAttribute('role')).toBe('status');
+      expect((await status.textContent())?.trim()).toBe('');
+    }
     const c = compareSections(s.sections.map((x) => ({ section: x.section, values: x.values })));
     const panel = app.page.getByTestId('comparison');
     for (const sentence of c.sentences) expect(await panel.getByText(sentence, { exact: true }).count()).toBe(1);
@@ -252,6 +269,7 @@ describe('Sections workspace (browser)', () => {
 
   it('light mode: no axe violations with every text alternative open; no CSP or console errors; screenshot', async () => {
     const { page } = app;
+    await page.getByTestId('comparison').waitFor();
     for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
     const results = await runAxe(page);
     expect(describeViolations(results)).toEqual([]);
