@@ -231,9 +231,21 @@ describe('Sections workspace (browser)', () => {
     expect(await fig.locator('g.wb-ecdf-mark line').count()).toBe(1);
   });
 
-  it('letter distribution: one bar per section and letter', async () => {
+  it('letter distribution: one bar per section and letter, with the count of the engine’s letters', async () => {
     const letters = new Set(project.plan.scale.cutoffs.map((c) => c.letter));
     expect(await app.page.locator('figure[data-chart="letters"] g.wb-letter-bar rect').count()).toBe(letters.size * stats().sections.length);
+    // Counted here straight from gradeCourse's letters, one student at a time.
+    const expected = new Map<string, number>();
+    project.gradebook.students.forEach((s, i) => {
+      const letter = results[i]!.letter;
+      if (letter !== null) expected.set(`${s.section}, ${letter}`, (expected.get(`${s.section}, ${letter}`) ?? 0) + 1);
+    });
+    const titles = await app.page.locator('figure[data-chart="letters"] g.wb-letter-bar rect title').allTextContents();
+    for (const t of titles) {
+      const m = /^(.*): (\d+) \(/.exec(t);
+      expect(m, t).not.toBeNull();
+      expect(Number(m![2]), t).toBe(expected.get(m![1]!) ?? 0);
+    }
   });
 
   it('comparison and item analysis show the engine’s words and numbers', async () => {

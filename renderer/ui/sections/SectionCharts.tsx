@@ -129,10 +129,12 @@ export function EcdfFigure({ stats }: { stats: SectionStatistics }) {
   const mark = at === null ? Math.round((lo + hi) / 2) : Math.min(hi, Math.max(lo, at));
   const sliderId = useId();
   const build = useCallback((doc: Document) => (series.length === 0 ? null : ecdfChart(doc, series, mark, stats.label)), [series, mark, stats.label]);
-  const shares = stats.sections.filter((s) => s.values.length > 0).map((s) => {
-    const sorted = [...s.values].sort((a, b) => a - b);
-    return { section: s.section, share: ecdfAt(sorted, mark), n: s.values.length };
-  });
+  // Sorted once per statistics, not on every move of the mark.
+  const sortedSections = useMemo(
+    () => stats.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, sorted: [...s.values].sort((a, b) => a - b) })),
+    [stats],
+  );
+  const shares = sortedSections.map(({ section, sorted }) => ({ section, share: ecdfAt(sorted, mark), n: sorted.length }));
   return (
     <ChartFigure
       chart="ecdf"

@@ -16,6 +16,7 @@ import { comparisonSteps } from '../../engine/analysis/compareSections';
 import { itemAnalysisSteps } from '../../engine/analysis/itemAnalysis';
 import type { Measure } from '../../engine/analysis/measure';
 import { sectionStatistics } from '../../engine/analysis/sectionStatistics';
+import { finalMarkStatistics } from '../../engine/fast/finalMarkStatistics';
 import { sortedCutoffs } from '../../engine/grading/gradeScale';
 import { QUANTILE_METHODS, QUANTILE_TYPES, type QuantileType } from '../../engine/stats/quantile';
 import { useCourseStore } from '../../state/courseStore';
@@ -57,7 +58,8 @@ export function SectionsWorkspace() {
 
   const stats = useMemo(() => {
     if (book === undefined || students === undefined) return null;
-    const s = sectionStatistics(book, students, { quantileType, measure });
+    // Final marks (the default view) on the fast path: each section sorted once, same numbers.
+    const s = measure.kind === 'final' ? finalMarkStatistics(book, students, quantileType) : sectionStatistics(book, students, { quantileType, measure });
     if (measure.kind !== 'category') return s;
     const name = plan?.categories.find((c) => c.id === measure.categoryId)?.name ?? measure.categoryId;
     return { ...s, label: `${name} (category %)` };
