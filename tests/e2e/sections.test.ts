@@ -260,6 +260,11 @@ describe('Sections workspace (browser)', () => {
     const panel = app.page.getByTestId('comparison');
     for (const sentence of c.sentences) expect(await panel.getByText(sentence, { exact: true }).count()).toBe(1);
     expect(await panel.getByText(c.caution, { exact: true }).count()).toBe(1);
+    // The pairwise sentences are built when their toggle opens.
+    const inWords = panel.locator('details').filter({ hasText: 'The same, in sentences' });
+    await inWords.locator('summary').click();
+    expect(await inWords.locator('li').allTextContents()).toEqual(c.pairs.map((p) => p.sentence));
+    await inWords.locator('summary').click();
     const items = itemAnalysis(project.gradebook, project.plan);
     const rows = await app.page.locator('[data-testid="item-analysis"] tbody tr').evaluateAll((trs) =>
       trs.map((tr) => ({ id: tr.getAttribute('data-assessment'), flags: tr.getAttribute('data-flags'), r: tr.querySelector('td[data-value]')?.getAttribute('data-value') ?? null })),

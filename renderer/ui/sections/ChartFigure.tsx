@@ -1,12 +1,11 @@
 /**
  * One chart: a keyboard-reachable <figure> holding the Plot SVG, a readout that arrow keys step
  * through (the values a pointer user sees on hover), and the numbers behind the chart as a table
- * behind a visible toggle — the chart's text alternative. The table is built when the toggle is
- * opened (a closed <details> shows nothing and is not in the accessibility tree): on a large
- * course the ECDF's table alone has a row per distinct mark per section, thousands of rows that
- * would otherwise be rebuilt on every change.
+ * behind a visible toggle — the chart's text alternative, built when the toggle is opened
+ * (LazyDetails).
  */
 import { useEffect, useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { LazyDetails } from './LazyDetails';
 
 export function ChartFigure({ chart, title, build, readoutCount, readout, table, children }: {
   /** data-chart value, for tests and styling. */
@@ -25,7 +24,6 @@ export function ChartFigure({ chart, title, build, readoutCount, readout, table,
 }) {
   const host = useRef<HTMLDivElement>(null);
   const [active, setActive] = useState<number | null>(null);
-  const [tableOpen, setTableOpen] = useState(false);
   const ids = { caption: useId(), readout: useId() };
 
   useEffect(() => {
@@ -68,10 +66,7 @@ export function ChartFigure({ chart, title, build, readoutCount, readout, table,
           {current !== null ? readout(current) : readoutCount > 0 ? 'Focus the chart and use the arrow keys to read its values.' : 'Nothing to draw.'}
         </figcaption>
       </figure>
-      <details className="wb-chart-table" onToggle={(e) => setTableOpen(e.currentTarget.open)}>
-        <summary>Numbers behind “{title}”</summary>
-        {tableOpen && table()}
-      </details>
+      <LazyDetails className="wb-chart-table" summary={`Numbers behind “${title}”`}>{table}</LazyDetails>
     </section>
   );
 }
