@@ -66,7 +66,8 @@ export function SectionsWorkspace() {
   }, [book, students, quantileType, measure, plan]);
 
   // Both depend on the course result (replaced on every gradebook or plan change) and, for the
-  // comparison, on the measure's values; neither on the quartile method.
+  // comparison, on the measure's values; neither on the quartile method. The step functions run
+  // only while the owner is not null, that is while stats, book and plan exist.
   const comparison = useAfterPaint(stats === null ? null : results, `comparison of ${measureKey(measure)}`, () =>
     comparisonSteps(stats!.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, values: s.values }))),
   );
