@@ -2,10 +2,11 @@
  * The open course and its history, for every workspace. All changes go through `apply` (or
  * `open`), never through local copies, so undo/redo, the dirty flag and autosave see each one.
  */
-import { createContext, useCallback, useContext, useEffect, useMemo, useReducer, useState, type ReactNode } from 'react';
+import { createContext, useCallback, useContext, useEffect, useMemo, useReducer, useRef, useState, type ReactNode } from 'react';
 import type { CourseProject } from '../bridge/contract';
 import { useBridge } from '../bridge/BridgeContext';
-import { gradeCourse, type CourseResult } from '../engine/grading/gradeCourse';
+import type { CourseResult } from '../engine/grading/gradeCourse';
+import { CourseGrading } from './courseGrading';
 import {
   DEFAULT_HISTORY_LIMIT,
   historyReducer,
@@ -23,7 +24,12 @@ export type { CourseResult } from '../engine/grading/gradeCourse';
 export interface CourseStore {
   readonly project: CourseProject | null;
   readonly projectPath: string | null;
-  /** gradeCourse(project.gradebook, project.plan), recomputed only when either changes. */
+  /**
+   * gradeCourse(project.gradebook, project.plan), recomputed only when either changes — on the
+   * fast path, incrementally after a weight or score edit (courseGrading.ts). Each student's
+   * explanation `lines` (and effective weights) are computed when first read, so only the students
+   * a screen shows pay for them.
+   */
   readonly results: CourseResult | null;
   readonly dirty: boolean;
   apply(edit: Edit): void;
@@ -56,9 +62,11 @@ export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_L
 
   const gradebook = project?.gradebook;
   const plan = project?.plan;
+  const grading = useRef<CourseGrading | null>(null);
   const results = useMemo<CourseResult | null>(() => {
     if (gradebook === undefined || plan === undefined) return null;
-    return gradeCourse(gradebook, plan);
+    grading.current ??= new CourseGrading();
+    return grading.current.grade(gradebook, plan);
   }, [gradebook, plan]); // the two parts the engine reads: a title edit does not regrade
 
   // Autosave: a debounced recovery copy after every change that is not on disk.

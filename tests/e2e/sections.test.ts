@@ -24,6 +24,9 @@ async function showSections(page: Page): Promise<void> {
   await page.getByRole('tab', { name: /Sections/ }).click();
   await page.getByRole('heading', { level: 1, name: 'Sections' }).waitFor();
   await page.locator('figure[data-chart="boxplot"] svg').waitFor();
+  // The comparison and the item analysis follow the first paint (computed in slices).
+  await page.getByTestId('comparison').waitFor();
+  await page.getByTestId('item-analysis').waitFor();
 }
 
 interface Cell { stat: string; section: string; value: string | null; text: string; defined: boolean }
@@ -160,6 +163,9 @@ describe('Sections workspace (browser)', () => {
   });
 
   it('every chart is keyboard reachable, named, and has its numbers as a table', async () => {
+    // The tables are built when their toggle opens.
+    const toggles = app.page.locator('.wb-chart-table > summary');
+    for (const summary of await toggles.all()) await summary.click();
     const figures = await app.page.locator('figure.wb-chart').evaluateAll((els) =>
       els.map((e) => ({ chart: e.getAttribute('data-chart'), tabindex: e.getAttribute('tabindex'), labelledBy: e.getAttribute('aria-labelledby'), tables: e.parentElement?.querySelectorAll('details table').length ?? 0 })),
     );
@@ -169,6 +175,8 @@ describe('Sections workspace (browser)', () => {
       expect(f.labelledBy).not.toBeNull();
       expect(f.tables).toBe(1);
     }
+    for (const summary of await toggles.all()) await summary.click();
+    expect(await app.page.locator('.wb-chart-table table').count()).toBe(0);
   });
 
   it('histogram: the bins drawn are histogram()’s bins for each rule', async () => {
@@ -207,8 +215,11 @@ describe('Sections workspace (browser)', () => {
     const s = stats();
     const fig = app.page.locator('figure[data-chart="ecdf"]');
     for (const sec of s.sections) {
-      const steps = await fig.locator(`g[aria-label="ECDF steps, section ${sec.section}"] line`).count();
-      expect(steps, sec.section).toBe(new Set(sec.values).size);
+      // One step-after path per section: its levels are 0 and one share per distinct value, so the
+      // distinct y coordinates of its vertices count the steps drawn (plus the 0 level).
+      const d = await fig.locator(`g[aria-label="ECDF steps, section ${sec.section}"] path`).getAttribute('d');
+      const ys = new Set([...(d ?? '').matchAll(/[ML]\s*(-?[\d.]+)[ ,](-?[\d.]+)/g)].map((m) => m[2]));
+      expect(ys.size - 1, sec.section).toBe(new Set(sec.values).size);
     }
     const slider = app.page.getByLabel('Mark at');
     const t = 70;
@@ -220,17 +231,40 @@ describe('Sections workspace (browser)', () => {
     expect(await fig.locator('g.wb-ecdf-mark line').count()).toBe(1);
   });
 
-  it('letter distribution: one bar per section and letter', async () => {
+  it('letter distribution: one bar per section and letter, with the count of the engine’s letters', async () => {
     const letters = new Set(project.plan.scale.cutoffs.map((c) => c.letter));
     expect(await app.page.locator('figure[data-chart="letters"] g.wb-letter-bar rect').count()).toBe(letters.size * stats().sections.length);
+    // Counted here straight from gradeCourse's letters, one student at a time.
+    const expected = new Map<string, number>();
+    project.gradebook.students.forEach((s, i) => {
+      const letter = results[i]!.letter;
+      if (letter !== null) expected.set(`${s.section}, ${letter}`, (expected.get(`${s.section}, ${letter}`) ?? 0) + 1);
+    });
+    const titles = await app.page.locator('figure[data-chart="letters"] g.wb-letter-bar rect title').allTextContents();
+    for (const t of titles) {
+      const m = /^(.*): (\d+) \(/.exec(t);
+      expect(m, t).not.toBeNull();
+      expect(Number(m![2]), t).toBe(expected.get(m![1]!) ?? 0);
+    }
   });
 
   it('comparison and item analysis show the engine’s words and numbers', async () => {
     const s = stats();
+    // Their "computing" live regions are polite and empty once the numbers are shown.
+    for (const id of ['comparison-status', 'item-analysis-status']) {
+      const status = app.page.getByTestId(id);
+      expect(await status.getAttribute('role')).toBe('status');
+      expect((await status.textContent())?.trim()).toBe('');
+    }
     const c = compareSections(s.sections.map((x) => ({ section: x.section, values: x.values })));
     const panel = app.page.getByTestId('comparison');
     for (const sentence of c.sentences) expect(await panel.getByText(sentence, { exact: true }).count()).toBe(1);
     expect(await panel.getByText(c.caution, { exact: true }).count()).toBe(1);
+    // The pairwise sentences are built when their toggle opens.
+    const inWords = panel.locator('details').filter({ hasText: 'The same, in sentences' });
+    await inWords.locator('summary').click();
+    expect(await inWords.locator('li').allTextContents()).toEqual(c.pairs.map((p) => p.sentence));
+    await inWords.locator('summary').click();
     const items = itemAnalysis(project.gradebook, project.plan);
     const rows = await app.page.locator('[data-testid="item-analysis"] tbody tr').evaluateAll((trs) =>
       trs.map((tr) => ({ id: tr.getAttribute('data-assessment'), flags: tr.getAttribute('data-flags'), r: tr.querySelector('td[data-value]')?.getAttribute('data-value') ?? null })),
@@ -252,6 +286,7 @@ describe('Sections workspace (browser)', () => {
 
   it('light mode: no axe violations with every text alternative open; no CSP or console errors; screenshot', async () => {
     const { page } = app;
+    await page.getByTestId('comparison').waitFor();
     for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
     const results = await runAxe(page);
     expect(describeViolations(results)).toEqual([]);

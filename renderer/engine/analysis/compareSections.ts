@@ -21,6 +21,7 @@ import { mannWhitneyU } from '../stats/mannWhitneyU';
 import { mean } from '../stats/mean';
 import { smallGroupCaution } from '../stats/smallGroupCaution';
 import { welchT } from '../stats/welchT';
+import { runSteps } from './steps';
 
 export const ALPHA = 0.05;
 
@@ -107,6 +108,15 @@ function namedCaution(groups: readonly SectionGroup[]): string {
  * compareSections([{ section: 'A', values: [...] }, { section: 'B', values: [...] }]).overall.kind; // => 'welch'
  */
 export function compareSections(groups: readonly SectionGroup[]): SectionComparison {
+  return runSteps(comparisonSteps(groups));
+}
+
+/**
+ * compareSections in steps: the generator pauses (yields) after the overall test and after every
+ * pair, so a caller can spread the work over several tasks; run to its end it returns exactly
+ * compareSections(groups). With k sections there are k·(k − 1)/2 pairs.
+ */
+export function* comparisonSteps(groups: readonly SectionGroup[]): Generator<undefined, SectionComparison> {
   const sentences: string[] = [];
   let overall: OverallTest;
   if (groups.length < 2) {
@@ -134,6 +144,7 @@ export function compareSections(groups: readonly SectionGroup[]): SectionCompari
         : `The Kruskal–Wallis test is not possible: ${result.reason}.`,
     );
   }
+  yield;
 
   const pairs: PairComparison[] = [];
   for (let i = 0; i < groups.length; i++) {
@@ -151,6 +162,7 @@ export function compareSections(groups: readonly SectionGroup[]): SectionCompari
         hedges: hedgesG(ga.values, gb.values),
       };
       pairs.push({ ...base, sentence: pairSentence(base) });
+      yield;
     }
   }
   const bonferroniAlpha = pairs.length > 1 ? ALPHA / pairs.length : null;

@@ -4,7 +4,8 @@ export type { Measure, MeasureValues, Observation, LeftOutCount, LeftOutReason }
 export { sectionStatistics, outlierStudents } from './sectionStatistics';
 export type { SectionStatistics, SectionStatisticsOptions, SectionSummary, OutlierStudent } from './sectionStatistics';
 export { pearson, MIN_PAIRS } from './correlation';
-export { itemAnalysis, planWithout, LOW_DISCRIMINATION, VERY_HARD_PERCENT } from './itemAnalysis';
+export { itemAnalysis, itemAnalysisSteps, planWithout, LOW_DISCRIMINATION, VERY_HARD_PERCENT } from './itemAnalysis';
 export type { ItemAnalysis, ItemFlag, ItemFlagCode } from './itemAnalysis';
-export { compareSections, effectWords, formatP, ALPHA } from './compareSections';
+export { compareSections, comparisonSteps, effectWords, formatP, ALPHA } from './compareSections';
 export type { SectionComparison, SectionGroup, PairComparison, OverallTest } from './compareSections';
+export { runSteps } from './steps';

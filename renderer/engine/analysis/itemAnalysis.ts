@@ -26,13 +26,14 @@
  * (fast/weightedWithout.ts, property-tested identical to gradeCourse with planWithout), so the
  * whole analysis is O(S·(C·A + Σ items per category)) rather than one full regrade per assessment.
  */
-import { compileCourse } from '../fast/compileCourse';
-import { gradeCompiled } from '../fast/gradeCompiled';
+import { compileCourse, type CompiledCourse } from '../fast/compileCourse';
+import { gradeCompiled, type FastGrades } from '../fast/gradeCompiled';
 import { planWithout, weightedWithout } from '../fast/weightedWithout';
 import type { Gradebook, GradingPlan } from '../model';
 import type { Defined } from '../defined';
 import { mean } from '../stats/mean';
 import { sampleSd } from '../stats/standardDeviation';
+import { runSteps } from './steps';
 import { pearson } from './correlation';
 
 export const LOW_DISCRIMINATION = 0.2;
@@ -94,56 +95,74 @@ function flagsFor(a: { possible: number }, percents: readonly number[], m: Defin
  * itemAnalysis(book, plan)[0].discrimination; // => { defined: true, value: 0.41 } (say)
  */
 export function itemAnalysis(book: Gradebook, plan: GradingPlan): ItemAnalysis[] {
+  return runSteps(itemAnalysisSteps(book, plan));
+}
+
+/**
+ * itemAnalysis in steps: the generator pauses (yields) after grading the course and after each
+ * assessment, so a caller can spread the work over several tasks; run to its end it returns
+ * exactly itemAnalysis(book, plan).
+ */
+export function* itemAnalysisSteps(book: Gradebook, plan: GradingPlan): Generator<undefined, ItemAnalysis[]> {
   const course = compileCourse(book, plan);
   const grades = gradeCompiled(course);
+  yield;
+  const rows: ItemAnalysis[] = [];
+  for (let ai = 0; ai < book.assessments.length; ai++) {
+    rows.push(analyseItem(book, plan, course, grades, ai));
+    yield;
+  }
+  return rows;
+}
+
+function analyseItem(book: Gradebook, plan: GradingPlan, course: CompiledCourse, grades: FastGrades, ai: number): ItemAnalysis {
   const full = grades;
-  return book.assessments.map((a, ai) => {
-    const rule = plan.items[a.id];
-    const rest = planWithout(plan, a.id) === plan ? full : weightedWithout(course, grades, book.assessments, a.id);
-    let missing = 0;
-    let excused = 0;
-    let pending = 0;
-    const percents: number[] = [];
-    const x: number[] = [];
-    const y: number[] = [];
-    const xFull: number[] = [];
-    const yFull: number[] = [];
-    book.students.forEach((_, si) => {
-      const cell = book.scores[si]?.[ai] ?? { kind: 'missing' as const };
-      if (cell.kind === 'missing') missing++;
-      else if (cell.kind === 'excused') excused++;
-      else if (cell.kind === 'pending') pending++;
-      else {
-        const p = (cell.points * 100) / a.possible; // multiply first: 7 of 100 gives exactly 7
-        percents.push(p);
-        if (rest.hasWeighted[si] === 1) {
-          x.push(p);
-          y.push(rest.weighted[si]!);
-        }
-        if (full.hasWeighted[si] === 1) {
-          xFull.push(p);
-          yFull.push(full.weighted[si]!);
-        }
+  const a = book.assessments[ai]!;
+  const rule = plan.items[a.id];
+  const rest = planWithout(plan, a.id) === plan ? full : weightedWithout(course, grades, book.assessments, a.id);
+  let missing = 0;
+  let excused = 0;
+  let pending = 0;
+  const percents: number[] = [];
+  const x: number[] = [];
+  const y: number[] = [];
+  const xFull: number[] = [];
+  const yFull: number[] = [];
+  book.students.forEach((_, si) => {
+    const cell = book.scores[si]?.[ai] ?? { kind: 'missing' as const };
+    if (cell.kind === 'missing') missing++;
+    else if (cell.kind === 'excused') excused++;
+    else if (cell.kind === 'pending') pending++;
+    else {
+      const p = (cell.points * 100) / a.possible; // multiply first: 7 of 100 gives exactly 7
+      percents.push(p);
+      if (rest.hasWeighted[si] === 1) {
+        x.push(p);
+        y.push(rest.weighted[si]!);
       }
-    });
-    const meanPercent = mean(percents);
-    const discrimination = pearson(x, y);
-    return {
-      assessmentId: a.id,
-      name: a.name,
-      possible: a.possible,
-      categoryId: rule?.categoryId ?? null,
-      extraCredit: rule?.extraCredit ?? false,
-      scored: percents.length,
-      missing,
-      excused,
-      pending,
-      meanPercent,
-      sdPercent: sampleSd(percents),
-      discrimination,
-      itemTotal: pearson(xFull, yFull),
-      pairs: x.length,
-      flags: flagsFor(a, percents, meanPercent, discrimination),
-    };
+      if (full.hasWeighted[si] === 1) {
+        xFull.push(p);
+        yFull.push(full.weighted[si]!);
+      }
+    }
   });
+  const meanPercent = mean(percents);
+  const discrimination = pearson(x, y);
+  return {
+    assessmentId: a.id,
+    name: a.name,
+    possible: a.possible,
+    categoryId: rule?.categoryId ?? null,
+    extraCredit: rule?.extraCredit ?? false,
+    scored: percents.length,
+    missing,
+    excused,
+    pending,
+    meanPercent,
+    sdPercent: sampleSd(percents),
+    discrimination,
+    itemTotal: pearson(xFull, yFull),
+    pairs: x.length,
+    flags: flagsFor(a, percents, meanPercent, discrimination),
+  };
 }

@@ -52,11 +52,19 @@ interface Summarised {
   studentIndices: number[];
 }
 
-function summarise(obs: readonly Observation[], quantileType: QuantileType): Summarised {
+/**
+ * How one group's values become its Summary: describe() here; a fast path may pass an equal
+ * summariser (engine/fast/finalMarkStatistics.ts sorts each group once).
+ */
+export type GroupSummariser = (values: readonly number[], labels: readonly string[], quantileType: QuantileType) => Summary;
+
+const describeGroup: GroupSummariser = (values, labels, quantileType) => describe(values, { quantileType, labels });
+
+function summarise(obs: readonly Observation[], quantileType: QuantileType, summariseGroup: GroupSummariser): Summarised {
   const values = obs.map((o) => o.value);
   const names = obs.map((o) => o.name);
   const studentIndices = obs.map((o) => o.studentIndex);
-  return { summary: describe(values, { quantileType, labels: names }), values, names, studentIndices };
+  return { summary: summariseGroup(values, names, quantileType), values, names, studentIndices };
 }
 
 /** An outlier of a group, located on the roster rather than by label. */
@@ -95,11 +103,27 @@ export function sectionStatistics(
   results: readonly StudentResult[],
   options: SectionStatisticsOptions,
 ): SectionStatistics {
+  return sectionStatisticsBy(book, results, options, describeGroup);
+}
+
+/** sectionStatistics with each group summarised by `summariseGroup` (which must equal describe()). */
+export function sectionStatisticsBy(
+  book: Gradebook,
+  results: readonly StudentResult[],
+  options: SectionStatisticsOptions,
+  summariseGroup: GroupSummariser,
+): SectionStatistics {
   const quantileType = options.quantileType ?? 7;
   const m = measureValues(book, results, options.measure);
-  const course = summarise(m.observations, quantileType);
+  const course = summarise(m.observations, quantileType, summariseGroup);
+  const bySection = new Map<string, Observation[]>();
+  for (const o of m.observations) {
+    const list = bySection.get(o.section);
+    if (list === undefined) bySection.set(o.section, [o]);
+    else list.push(o);
+  }
   const sections = sectionsOf(book).map((section) => {
-    const s = summarise(m.observations.filter((o) => o.section === section), quantileType);
+    const s = summarise(bySection.get(section) ?? [], quantileType, summariseGroup);
     return {
       section,
       summary: s.summary,

@@ -14,7 +14,7 @@
  */
 import type { Category, Gradebook, GradingPlan, Score, Student } from '../model';
 import type { CategoryLine, ExplanationLine, StudentResult } from '../results';
-import { applyAdjustments } from './adjustments';
+import { applyAdjustments, type AdjustedValues } from './adjustments';
 import { categoryScore, type CategoryItem } from './categoryScore';
 import { checkPlan, usableDecimals } from './checkPlan';
 import { letterFor } from './gradeScale';
@@ -184,16 +184,44 @@ export function finishStudent(
   };
 }
 
+/**
+ * The section adjustments of the whole course (adjustments.ts), from every student's weighted
+ * percent (index-aligned with book.students, null = no mark): a scale-to-mean step needs its
+ * group's mean, so even one student's adjusted value depends on the others.
+ */
+export function adjustCourse(book: Gradebook, plan: GradingPlan, weighted: readonly (number | null)[]): AdjustedValues {
+  return applyAdjustments(weighted, book.students.map((s) => s.section), plan.adjustments);
+}
+
 export function gradeCourse(book: Gradebook, plan: GradingPlan): CourseResult {
   const layout = layoutFor(book, plan);
   const weighed = book.students.map((s, i) => weighStudent(s, book.scores[i] ?? [], layout, plan));
-  const adjusted = applyAdjustments(
-    weighed.map((w) => w.weighted),
-    book.students.map((s) => s.section),
-    plan.adjustments,
-  );
+  const adjusted = adjustCourse(book, plan, weighed.map((w) => w.weighted));
   const students = book.students.map((s, i) =>
     finishStudent(s, weighed[i]!, adjusted.values[i] ?? null, adjusted.lines[i] ?? [], plan),
   );
   return { students, planProblems: [...checkPlan(book, plan), ...adjusted.problems] };
+}
+
+/**
+ * One student's result with every explanation line — exactly gradeCourse(book, plan).students[i] —
+ * without grading the rest of the course: the same weighStudent and finishStudent, given the
+ * course's adjustments (adjustCourse over every student's weighted percent, which a caller that
+ * already holds those percents, such as the fast path, computes once and shares between students).
+ * @throws {RangeError} when there is no student at `studentIndex`
+ * @example
+ * const adjusted = adjustCourse(book, plan, gradeCourse(book, plan).students.map((r) => r.weighted));
+ * explainStudent(book, plan, layoutFor(book, plan), 3, adjusted).lines; // the lines gradeCourse gives student 3
+ */
+export function explainStudent(
+  book: Gradebook,
+  plan: GradingPlan,
+  layout: readonly CategoryLayout[],
+  studentIndex: number,
+  adjusted: AdjustedValues,
+): StudentResult {
+  const student = book.students[studentIndex];
+  if (student === undefined) throw new RangeError(`explainStudent: no student at index ${studentIndex}`);
+  const weighed = weighStudent(student, book.scores[studentIndex] ?? [], layout, plan);
+  return finishStudent(student, weighed, adjusted.values[studentIndex] ?? null, adjusted.lines[studentIndex] ?? [], plan);
 }

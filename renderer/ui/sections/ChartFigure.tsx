@@ -1,20 +1,24 @@
 /**
  * One chart: a keyboard-reachable <figure> holding the Plot SVG, a readout that arrow keys step
  * through (the values a pointer user sees on hover), and the numbers behind the chart as a table
- * behind a visible toggle — the chart's text alternative.
+ * behind a visible toggle — the chart's text alternative, built when the toggle is opened
+ * (LazyDetails).
  */
 import { useEffect, useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { LazyDetails } from './LazyDetails';
 
-export function ChartFigure({ chart, title, build, readouts, table, children }: {
+export function ChartFigure({ chart, title, build, readoutCount, readout, table, children }: {
   /** data-chart value, for tests and styling. */
   chart: string;
   title: string;
   /** Builds the chart on the given document; null when there is nothing to draw. */
   build: (doc: Document) => Element | null;
   /** One sentence per value a keyboard user can step through with the arrow keys. */
-  readouts: readonly string[];
-  /** The numbers behind the chart. */
-  table: ReactNode;
+  readoutCount: number;
+  /** Readout `i` of `readoutCount`; called only for the one shown. */
+  readout: (i: number) => string;
+  /** The numbers behind the chart; called only while the toggle is open. */
+  table: () => ReactNode;
   /** Controls shown under the title (rule selector, slider …). */
   children?: ReactNode;
 }) {
@@ -29,11 +33,11 @@ export function ChartFigure({ chart, title, build, readouts, table, children }: 
     el.replaceChildren(...(node === null ? [] : [node]));
   }, [build]);
 
-  const current = active !== null && active < readouts.length ? active : null;
+  const current = active !== null && active < readoutCount ? active : null;
 
   const onKey = (e: KeyboardEvent<HTMLElement>) => {
-    if (readouts.length === 0) return;
-    const last = readouts.length - 1;
+    if (readoutCount === 0) return;
+    const last = readoutCount - 1;
     let next: number | null = null;
     if (e.key === 'ArrowRight' || e.key === 'ArrowDown') next = current === null ? 0 : Math.min(last, current + 1);
     else if (e.key === 'ArrowLeft' || e.key === 'ArrowUp') next = current === null ? 0 : Math.max(0, current - 1);
@@ -59,13 +63,10 @@ export function ChartFigure({ chart, title, build, readouts, table, children }: 
       >
         <div ref={host} className="wb-chart-host" />
         <figcaption id={ids.readout} className="wb-chart-readout" aria-live="polite">
-          {current !== null ? readouts[current] : readouts.length > 0 ? 'Focus the chart and use the arrow keys to read its values.' : 'Nothing to draw.'}
+          {current !== null ? readout(current) : readoutCount > 0 ? 'Focus the chart and use the arrow keys to read its values.' : 'Nothing to draw.'}
         </figcaption>
       </figure>
-      <details className="wb-chart-table">
-        <summary>Numbers behind “{title}”</summary>
-        {table}
-      </details>
+      <LazyDetails className="wb-chart-table" summary={`Numbers behind “${title}”`}>{table}</LazyDetails>
     </section>
   );
 }

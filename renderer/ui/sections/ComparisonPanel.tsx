@@ -2,6 +2,7 @@
 import type { SectionComparison } from '../../engine/analysis/compareSections';
 import { effectWords, formatP } from '../../engine/analysis/compareSections';
 import { fmt } from './format';
+import { LazyDetails } from './LazyDetails';
 
 export function ComparisonPanel({ comparison, label }: { comparison: SectionComparison; label: string }) {
   return (
@@ -29,10 +30,9 @@ export function ComparisonPanel({ comparison, label }: { comparison: SectionComp
               ))}
             </tbody>
           </table>
-          <details>
-            <summary>The same, in sentences</summary>
-            <ul>{comparison.pairs.map((p) => <li key={`${p.a}|${p.b}`}>{p.sentence}</li>)}</ul>
-          </details>
+          <LazyDetails summary="The same, in sentences">
+            {() => <ul>{comparison.pairs.map((p) => <li key={`${p.a}|${p.b}`}>{p.sentence}</li>)}</ul>}
+          </LazyDetails>
         </>
       )}
     </div>

@@ -48,8 +48,9 @@ export function BoxPlotFigure({ stats }: { stats: SectionStatistics }) {
       chart="boxplot"
       title={`Box plots per section (${stats.course.quantileMethod})`}
       build={build}
-      readouts={readouts}
-      table={
+      readoutCount={readouts.length}
+      readout={(i) => readouts[i] ?? ''}
+      table={() => (
         <table className="wb-data-table">
           <caption>Box plot numbers per section</caption>
           <thead><tr><th scope="col">Section</th><th scope="col">n</th><th scope="col">Lower whisker</th><th scope="col">Q1</th><th scope="col">Median</th><th scope="col">Q3</th><th scope="col">Upper whisker</th><th scope="col">Outliers</th></tr></thead>
@@ -62,7 +63,7 @@ export function BoxPlotFigure({ stats }: { stats: SectionStatistics }) {
             ))}
           </tbody>
         </table>
-      }
+      )}
     >
       <Legend sections={boxes.map((b) => b.section)} />
     </ChartFigure>
@@ -85,14 +86,18 @@ export function HistogramFigure({ stats, cutoffs }: { stats: SectionStatistics; 
       chart="histogram"
       title={`Histogram of ${stats.label}`}
       build={build}
-      readouts={bins.map((b) => `${fmt(b.lower)} to ${fmt(b.upper)}: ${b.count} student${b.count === 1 ? '' : 's'}.`)}
-      table={
+      readoutCount={bins.length}
+      readout={(i) => {
+        const b = bins[i]!;
+        return `${fmt(b.lower)} to ${fmt(b.upper)}: ${b.count} student${b.count === 1 ? '' : 's'}.`;
+      }}
+      table={() => (
         <table className="wb-data-table">
           <caption>Histogram bins ({hist.defined ? hist.value.rule : 'none'}); each bin includes its lower edge, the last also its upper edge</caption>
           <thead><tr><th scope="col">From</th><th scope="col">To</th><th scope="col">Students</th></tr></thead>
           <tbody>{bins.map((b, i) => <tr key={i}><td>{fmt(b.lower)}</td><td>{fmt(b.upper)}</td><td>{b.count}</td></tr>)}</tbody>
         </table>
-      }
+      )}
     >
       <div className="wb-chart-controls">
         <label htmlFor={groupId}>Group</label>
@@ -116,6 +121,7 @@ export function HistogramFigure({ stats, cutoffs }: { stats: SectionStatistics; 
 
 export function EcdfFigure({ stats }: { stats: SectionStatistics }) {
   const series = useMemo(() => ecdfData(stats), [stats]);
+  const steps = useMemo(() => series.flatMap((s) => s.steps.map((step) => ({ section: s.section, step }))), [series]);
   const all = stats.courseValues;
   const lo = all.length > 0 ? Math.floor(Math.min(...all)) : 0;
   const hi = all.length > 0 ? Math.ceil(Math.max(...all)) : 100;
@@ -123,17 +129,23 @@ export function EcdfFigure({ stats }: { stats: SectionStatistics }) {
   const mark = at === null ? Math.round((lo + hi) / 2) : Math.min(hi, Math.max(lo, at));
   const sliderId = useId();
   const build = useCallback((doc: Document) => (series.length === 0 ? null : ecdfChart(doc, series, mark, stats.label)), [series, mark, stats.label]);
-  const shares = stats.sections.filter((s) => s.values.length > 0).map((s) => {
-    const sorted = [...s.values].sort((a, b) => a - b);
-    return { section: s.section, share: ecdfAt(sorted, mark), n: s.values.length };
-  });
+  // Sorted once per statistics, not on every move of the mark.
+  const sortedSections = useMemo(
+    () => stats.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, sorted: [...s.values].sort((a, b) => a - b) })),
+    [stats],
+  );
+  const shares = sortedSections.map(({ section, sorted }) => ({ section, share: ecdfAt(sorted, mark), n: sorted.length }));
   return (
     <ChartFigure
       chart="ecdf"
       title={`Cumulative share per section (ECDF) of ${stats.label}`}
       build={build}
-      readouts={series.flatMap((s) => s.steps.map((st) => `Section ${s.section}: ${fmt(st.p * 100, 1)} % at or below ${fmt(st.x)}.`))}
-      table={
+      readoutCount={steps.length}
+      readout={(i) => {
+        const { section, step } = steps[i]!;
+        return `Section ${section}: ${fmt(step.p * 100, 1)} % at or below ${fmt(step.x)}.`;
+      }}
+      table={() => (
         <table className="wb-data-table">
           <caption>ECDF steps per section: share of students at or below each value</caption>
           <thead><tr><th scope="col">Section</th><th scope="col">Value</th><th scope="col">Share at or below</th></tr></thead>
@@ -143,7 +155,7 @@ export function EcdfFigure({ stats }: { stats: SectionStatistics }) {
             )))}
           </tbody>
         </table>
-      }
+      )}
     >
       <Legend sections={series.map((s) => s.section)} />
       <div className="wb-chart-controls">
@@ -173,8 +185,12 @@ export function LetterFigure({ dist }: { dist: LetterDistribution }) {
       chart="letters"
       title="Letter-grade distribution per section"
       build={build}
-      readouts={dist.data.map((d) => `Section ${d.section}, ${d.letter}: ${d.count} (${fmt(d.share * 100, 1)} %).`)}
-      table={
+      readoutCount={dist.data.length}
+      readout={(i) => {
+        const d = dist.data[i]!;
+        return `Section ${d.section}, ${d.letter}: ${d.count} (${fmt(d.share * 100, 1)} %).`;
+      }}
+      table={() => (
         <table className="wb-data-table">
           <caption>Students per letter and section (share of the section's students with a letter)</caption>
           <thead><tr><th scope="col">Letter</th>{dist.sections.map((s) => <th key={s} scope="col">{s}</th>)}</tr></thead>
@@ -191,7 +207,7 @@ export function LetterFigure({ dist }: { dist: LetterDistribution }) {
             <tr><th scope="row">No letter</th>{dist.sections.map((s) => <td key={s}>{dist.noLetter[s] ?? 0}</td>)}</tr>
           </tbody>
         </table>
-      }
+      )}
     >
       <Legend sections={dist.sections} />
       {missing.length > 0 && <p className="wb-hint">Students without a mark are not in the shares: {missing.map((s) => `${s}: ${dist.noLetter[s]}`).join(', ')}.</p>}

@@ -4,13 +4,19 @@
  * charts, the comparison in plain words, and the per-assessment item analysis. Also where marks
  * leave the app: the export dialog and the printable report.
  *
+ * The statistics table and the charts are in the first paint. The comparison (a test for every
+ * pair of sections) and the item analysis (a rest mark per assessment) take far longer on a large
+ * course, so they are computed after that paint, in slices (useAfterPaint), with a polite
+ * "computing" status in their place meanwhile.
+ *
  * Every number is the engine's (analysis/, stats/); this screen arranges and labels them.
  */
 import { useId, useMemo, useState } from 'react';
-import { compareSections } from '../../engine/analysis/compareSections';
-import { itemAnalysis } from '../../engine/analysis/itemAnalysis';
+import { comparisonSteps } from '../../engine/analysis/compareSections';
+import { itemAnalysisSteps } from '../../engine/analysis/itemAnalysis';
 import type { Measure } from '../../engine/analysis/measure';
 import { sectionStatistics } from '../../engine/analysis/sectionStatistics';
+import { finalMarkStatistics } from '../../engine/fast/finalMarkStatistics';
 import { sortedCutoffs } from '../../engine/grading/gradeScale';
 import { QUANTILE_METHODS, QUANTILE_TYPES, type QuantileType } from '../../engine/stats/quantile';
 import { useCourseStore } from '../../state/courseStore';
@@ -21,6 +27,7 @@ import { ComparisonPanel } from './ComparisonPanel';
 import { ItemAnalysisTable } from './ItemAnalysisTable';
 import { BoxPlotFigure, EcdfFigure, HistogramFigure, LetterFigure } from './SectionCharts';
 import { StatisticsTable } from './StatisticsTable';
+import { useAfterPaint } from './useAfterPaint';
 import './sections.css';
 
 /** Select value ⇄ measure: "final", "cat:<id>", "asm:<id>". */
@@ -51,23 +58,26 @@ export function SectionsWorkspace() {
 
   const stats = useMemo(() => {
     if (book === undefined || students === undefined) return null;
-    const s = sectionStatistics(book, students, { quantileType, measure });
+    // Final marks (the default view) on the fast path: each section sorted once, same numbers.
+    const s = measure.kind === 'final' ? finalMarkStatistics(book, students, quantileType) : sectionStatistics(book, students, { quantileType, measure });
     if (measure.kind !== 'category') return s;
     const name = plan?.categories.find((c) => c.id === measure.categoryId)?.name ?? measure.categoryId;
     return { ...s, label: `${name} (category %)` };
   }, [book, students, quantileType, measure, plan]);
 
-  const comparison = useMemo(
-    () => (stats === null ? null : compareSections(stats.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, values: s.values })))),
-    [stats],
+  // Both depend on the course result (replaced on every gradebook or plan change) and, for the
+  // comparison, on the measure's values; neither on the quartile method. The step functions run
+  // only while the owner is not null, that is while stats, book and plan exist.
+  const comparison = useAfterPaint(stats === null ? null : results, `comparison of ${measureKey(measure)}`, () =>
+    comparisonSteps(stats!.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, values: s.values }))),
   );
-  const items = useMemo(() => (book === undefined || plan === undefined ? [] : itemAnalysis(book, plan)), [book, plan]);
+  const items = useAfterPaint(book === undefined || plan === undefined ? null : results, 'item analysis', () => itemAnalysisSteps(book!, plan!));
   const letters = useMemo(
     () => (book === undefined || plan === undefined || students === undefined || stats === null ? null : letterDistribution(book, students, plan.scale, stats.sections.map((s) => s.section))),
     [book, plan, students, stats],
   );
 
-  if (project === null || book === undefined || plan === undefined || stats === null || comparison === null || letters === null || results === null) {
+  if (project === null || book === undefined || plan === undefined || stats === null || letters === null || results === null) {
     return <div className="wb-sections"><p>Open or import a course to see its statistics.</p></div>;
   }
 
@@ -119,17 +129,35 @@ export function SectionsWorkspace() {
         </div>
       </section>
 
-      <section className="wb-panel" aria-label="Comparison of sections">
+      <section className="wb-panel" aria-label="Comparison of sections" aria-busy={!comparison.ready}>
         <h2>Comparing sections on {stats.label}</h2>
-        <ComparisonPanel comparison={comparison} label={stats.label} />
+        <Computing what="the tests of difference between sections" busy={!comparison.ready} testId="comparison-status" />
+        {comparison.ready && <ComparisonPanel comparison={comparison.value} label={stats.label} />}
       </section>
 
-      <section className="wb-panel" aria-label="Item analysis">
+      <section className="wb-panel" aria-label="Item analysis" aria-busy={!items.ready}>
         <h2>Assessments: difficulty and discrimination</h2>
-        <ItemAnalysisTable rows={items} categoryName={categoryName} />
+        <Computing what={`the item analysis of ${book.assessments.length} assessment${book.assessments.length === 1 ? '' : 's'}`} busy={!items.ready} testId="item-analysis-status" />
+        {items.ready && <ItemAnalysisTable rows={items.value} categoryName={categoryName} />}
       </section>
 
       {dialog === 'report' && <ReportPreview project={project} results={results.students} quantileType={quantileType} onClose={() => setDialog('none')} />}
     </section>
+  );
+}
+
+function measureKey(measure: Measure): string {
+  return measure.kind === 'final' ? 'final' : measure.kind === 'category' ? `cat:${measure.categoryId}` : `asm:${measure.assessmentId}`;
+}
+
+/**
+ * A polite live region, present while the panel is shown, saying what is still being computed;
+ * empty once the numbers are there (they replace it on screen).
+ */
+function Computing({ what, busy, testId }: { what: string; busy: boolean; testId: string }) {
+  return (
+    <p role="status" className={busy ? 'wb-hint wb-computing' : 'wb-visually-hidden'} data-testid={testId}>
+      {busy ? `Computing ${what}…` : ''}
+    </p>
   );
 }

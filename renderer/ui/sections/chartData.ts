@@ -49,24 +49,25 @@ export interface LetterDistribution {
 /** Letters in scale order (highest cutoff first); shares are of the students with a letter. */
 export function letterDistribution(book: Gradebook, results: readonly StudentResult[], scale: GradeScale, sections: readonly string[]): LetterDistribution {
   const letters = [...new Set(sortedCutoffs(scale).map((c) => c.letter))];
+  // One pass over the roster: counts per section and letter.
+  const counts = new Map<string, Map<string, number>>(sections.map((s) => [s, new Map(letters.map((l) => [l, 0]))]));
+  const without = new Map<string, number>(sections.map((s) => [s, 0]));
+  book.students.forEach((s, i) => {
+    const byLetter = counts.get(s.section);
+    if (byLetter === undefined) return;
+    const letter = results[i]?.letter ?? null;
+    if (letter === null) without.set(s.section, (without.get(s.section) ?? 0) + 1);
+    else byLetter.set(letter, (byLetter.get(letter) ?? 0) + 1);
+  });
   const data: LetterDatum[] = [];
   const noLetter: Record<string, number> = {};
   for (const section of sections) {
-    const counts = new Map<string, number>(letters.map((l) => [l, 0]));
+    const byLetter = counts.get(section)!;
     let withLetter = 0;
-    let without = 0;
-    book.students.forEach((s, i) => {
-      if (s.section !== section) return;
-      const letter = results[i]?.letter ?? null;
-      if (letter === null) without++;
-      else {
-        counts.set(letter, (counts.get(letter) ?? 0) + 1);
-        withLetter++;
-      }
-    });
-    noLetter[section] = without;
+    for (const c of byLetter.values()) withLetter += c;
+    noLetter[section] = without.get(section) ?? 0;
     for (const letter of letters) {
-      const count = counts.get(letter) ?? 0;
+      const count = byLetter.get(letter) ?? 0;
       data.push({ section, letter, count, share: withLetter === 0 ? 0 : count / withLetter });
     }
   }

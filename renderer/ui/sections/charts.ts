@@ -118,26 +118,37 @@ export function histogramChart(
   );
 }
 
-/** ECDF per section as right-continuous steps (one horizontal segment per distinct value), and a movable mark. */
+/**
+ * ECDF per section as a right-continuous step function — one path per section, drawn step-after
+ * through its steps: level 0 up to the smallest value, then each step's share from its value to the
+ * next distinct value, the last one (100 %) to the right edge — and a movable mark. One path per
+ * section rather than one element per step keeps the chart light on a large course (thousands of
+ * distinct marks); the step values are in the table beside the chart and the mark reads F(t).
+ */
 export function ecdfChart(doc: Document, series: readonly EcdfSeries[], at: number | null, xLabel: string): SVGSVGElement | HTMLElement {
   const sections = series.map((s) => s.section);
-  const all = series.flatMap((s) => s.steps.map((st) => st.x));
-  const xMax = Math.max(...all, at ?? -Infinity);
-  const xMin = Math.min(...all, at ?? Infinity);
-  // Each step runs from its value to the next distinct value (the last one to the right edge).
-  const segments = series.flatMap((s) =>
-    s.steps.map((st, i) => ({ section: s.section, x1: st.x, x2: s.steps[i + 1]?.x ?? xMax, p: st.p })),
-  );
-  // The risers between steps, drawn as a step-after line (decoration; the steps are the rules).
-  const risers = series.map((s) =>
-    Plot.line([{ x: s.steps[0]?.x ?? xMin, p: 0 }, ...s.steps], { x: 'x', y: 'p', curve: 'step-after', stroke: () => s.section, strokeOpacity: 0.6, className: 'wb-ecdf-riser', ariaHidden: 'true' }),
-  );
-  const marks: Plot.Markish[] = [...risers, ...sections.map((section, k) =>
-    Plot.ruleY(
-      segments.filter((g) => g.section === section),
-      { x1: 'x1', x2: 'x2', y: 'p', stroke: 'section', strokeWidth: 2, title: (g: { x1: number; p: number }) => `${section}: ${f2(g.p * 100)} % at or below ${f2(g.x1)}`, className: `wb-ecdf-step-${k}` },
-    ),
-  )];
+  let xMin = at ?? Infinity;
+  let xMax = at ?? -Infinity;
+  for (const s of series) {
+    const first = s.steps[0];
+    const last = s.steps[s.steps.length - 1];
+    if (first !== undefined && first.x < xMin) xMin = first.x;
+    if (last !== undefined && last.x > xMax) xMax = last.x;
+  }
+  const marks: Plot.Markish[] = series.map((s, k) => {
+    const first = s.steps[0];
+    const last = s.steps[s.steps.length - 1];
+    const points = first === undefined || last === undefined ? [] : [{ x: first.x, p: 0 }, ...s.steps, { x: xMax, p: last.p }];
+    return Plot.line(points, {
+      x: 'x',
+      y: 'p',
+      curve: 'step-after',
+      stroke: () => s.section,
+      strokeWidth: 2,
+      title: () => `${s.section}: ${s.steps.length} step${s.steps.length === 1 ? '' : 's'}, from ${f2(first?.x ?? 0)} to ${f2(last?.x ?? 0)}`,
+      className: `wb-ecdf-step-${k}`,
+    });
+  });
   if (at !== null) marks.push(Plot.ruleX([at], { stroke: 'currentColor', strokeDasharray: '2 2', className: 'wb-ecdf-mark' }));
   const svg = stripPlotStyle(
     Plot.plot({
