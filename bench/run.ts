@@ -491,7 +491,7 @@ function targets(r: Record<string, unknown>): Record<string, { target: string; v
       'weight edit to statistics painted ≤ 100 ms (the limit for feeling instantaneous: Nielsen, Usability Engineering, 1993; cited from memory)',
       ren['weightEditToPaintMs'],
       rendererMeasured && (ren['weightEditToPaintMs'] ?? Infinity) <= 100,
-      rendererMeasured ? 'the store regrades with the plain gradeCourse (explanation lines for every student), and the Sections workspace recomputes statistics, charts and item analysis on every plan change; see bench/LATEST.md' : 'not measured in this run',
+      rendererMeasured ? 'the store now grades incrementally on the fast path and Sections defers the comparison and item analysis; what remains is mostly per-section chart and DOM work (four charts over 40 sections, the 41-column table) and the Plan step’s plan checks; see bench/LATEST.md' : 'not measured in this run',
     ),
   };
 }
