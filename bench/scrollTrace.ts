@@ -5,6 +5,7 @@
  * last — while recording a Chromium trace over CDP (`Tracing`), or a CPU profile (`Profiler`).
  *
  *   npx tsx bench/scrollTrace.ts [--students 1000] [--profile] [--out /tmp/scroll] [--renderer DIR]
+ *     [--edit] [--start FRACTION] [--steps N]
  *
  * --renderer serves another build of the renderer (e.g. `vite build … --outDir /tmp/before`), to
  * compare two builds run after run on this noisy machine; default dist/renderer through openApp.
@@ -31,6 +32,8 @@ const students = Number(arg('--students') ?? '1000');
 const profile = process.argv.includes('--profile');
 const out = arg('--out') ?? join(tmpdir(), `scroll-${students}`);
 const rendererDir = arg('--renderer');
+/** Before scrolling, edit the first category's weight in Plan and show Sections, as bench/renderer.ts does. */
+const editFirst = process.argv.includes('--edit');
 /** Start at this fraction of the grid's height (default 0: the first row). */
 const startAt = Number(arg('--start') ?? '0');
 /** Stop after this many wheel steps (default: at the last row). */
@@ -158,6 +161,17 @@ async function main(): Promise<void> {
     await answerPathDialog(page, path);
     await page.getByText(title).first().waitFor({ timeout: 120_000 });
     await page.evaluate(PROBE);
+    if (editFirst) {
+      const category = plan.categories[0];
+      if (category === undefined) throw new Error('the plan has no category');
+      await page.keyboard.press('Control+3');
+      const field = page.getByRole('textbox', { name: `Weight of ${category.name}`, exact: true });
+      await field.fill(String(category.weight + 5));
+      await field.press('Enter');
+      await page.keyboard.press('Control+5');
+      await page.locator('[data-testid="section-statistics"]').waitFor({ timeout: 600_000 });
+      await page.evaluate('window.__afterPaint()');
+    }
     await page.keyboard.press('Control+2');
     await page.getByRole('grid', { name: /Scores/ }).waitFor({ timeout: 60_000 });
     const el = "document.querySelector('.wb-roster-scroll')";

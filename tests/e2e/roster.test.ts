@@ -17,7 +17,7 @@ import { answerPathDialog, describeViolations, openApp, runAxe, screenshot, type
 /** Wait for the page to catch up (a bound on waiting, not a timing assertion). */
 const poll = <T>(fn: () => T | Promise<T>) => expect.poll(fn, { timeout: 15_000, interval: 50 });
 
-/** Columns before the assessments: student, section, final (RosterGrid.tsx). */
+/** Columns before the assessments: student, section, final (RosterRow.tsx). */
 const FIXED = 3;
 /** Row and header heights in px (RosterRow.tsx). */
 const ROW_HEIGHT = 34;
