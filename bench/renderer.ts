@@ -46,7 +46,7 @@ import { answerPathDialog, openApp, type AppSession } from '../tests/e2e/harness
 import { syntheticCourse } from './generate';
 
 const WHEEL_PX = 680; // 20 rows of 34 px per wheel step: a brisk fling, not a single notch
-const ROW_HEIGHT = 34; // renderer/ui/roster/RosterGrid.tsx
+const ROW_HEIGHT = 34; // renderer/ui/roster/RosterRow.tsx
 
 export interface RendererOptions {
   readonly students: number;

@@ -17,8 +17,37 @@ import { answerPathDialog, describeViolations, openApp, runAxe, screenshot, type
 /** Wait for the page to catch up (a bound on waiting, not a timing assertion). */
 const poll = <T>(fn: () => T | Promise<T>) => expect.poll(fn, { timeout: 15_000, interval: 50 });
 
-/** Columns before the assessments: student, section, final (RosterGrid.tsx). */
+/** Columns before the assessments: student, section, final (RosterRow.tsx). */
 const FIXED = 3;
+/** Row and header heights in px (RosterRow.tsx). */
+const ROW_HEIGHT = 34;
+const HEADER_HEIGHT = 58;
+
+/** Resolves after the next painted frame (requestAnimationFrame, then a task after it). */
+const afterPaint = (page: Page) =>
+  page.evaluate(() => new Promise<void>((resolve) => requestAnimationFrame(() => {
+    const ch = new MessageChannel();
+    ch.port1.onmessage = () => resolve();
+    ch.port2.postMessage(null);
+  })));
+
+/**
+ * The scroller's position and every body row in the DOM: its aria-rowindex, its top relative to
+ * the grid's scrolled content (px, from the layout), and its row header's text.
+ */
+const screenRows = (page: Page) =>
+  page.evaluate(() => {
+    const scroller = document.querySelector<HTMLElement>('.wb-roster-scroll');
+    const grid = document.querySelector<HTMLElement>('[role="grid"]');
+    if (scroller === null || grid === null) throw new Error('no grid');
+    const gridTop = grid.getBoundingClientRect().top;
+    const rows = [...document.querySelectorAll<HTMLElement>('.wb-roster-body [role="row"]')].map((r) => ({
+      rowindex: Number(r.getAttribute('aria-rowindex')),
+      top: Math.round(r.getBoundingClientRect().top - gridTop),
+      student: r.querySelector('[role="rowheader"]')?.textContent ?? '',
+    }));
+    return { scrollTop: scroller.scrollTop, height: scroller.clientHeight, rows };
+  });
 
 async function demo(): Promise<CourseProject> {
   const loaded = await loadDemoCourse();
@@ -198,6 +227,116 @@ describe('Roster workspace (browser)', () => {
     expect(sections.length).toBeGreaterThan(0);
     expect(new Set(sections)).toEqual(new Set(['A03']));
     await page.getByLabel('Section').selectOption('');
+  });
+
+  it('shows the right rows in place after every long wheel step, top to bottom', async () => {
+    const { page } = app;
+    const { students } = project.gradebook;
+    const scroller = page.locator('.wb-roster-scroll');
+    await scroller.evaluate((el) => { el.scrollTop = 0; });
+    const box = await scroller.boundingBox();
+    if (box === null) throw new Error('the grid is not on screen');
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    let steps = 0;
+    for (;;) {
+      // 680 px, 20 rows: more than a screen, as bench/renderer.ts scrolls.
+      await page.mouse.wheel(0, 20 * ROW_HEIGHT);
+      await afterPaint(page);
+      await afterPaint(page);
+      const at = await screenRows(page);
+      const firstOnScreen = Math.floor(at.scrollTop / ROW_HEIGHT);
+      const lastOnScreen = Math.min(students.length - 1, Math.floor((at.scrollTop + at.height - HEADER_HEIGHT - 1) / ROW_HEIGHT));
+      const byIndex = new Map(at.rows.map((r) => [r.rowindex - 2, r]));
+      for (let i = firstOnScreen; i <= lastOnScreen; i++) {
+        const r = byIndex.get(i);
+        const student = students[i];
+        if (student === undefined) throw new Error('bad index');
+        expect(r, `row ${i} at scrollTop ${at.scrollTop}`).toBeDefined();
+        expect(r?.top).toBe(HEADER_HEIGHT + i * ROW_HEIGHT);
+        expect(r?.student).toBe(`${student.name}${student.id}`);
+      }
+      steps++;
+      if (lastOnScreen === students.length - 1 || steps > students.length) break;
+    }
+    expect(steps).toBeGreaterThan(3);
+    expect(await page.getByRole('grid', { name: /Scores/ }).getByRole('row').count()).toBeLessThan(80);
+  });
+
+  it('keeps focus on the active cell while the wheel scrolls it away, and arrows bring it back', async () => {
+    const { page } = app;
+    const scroller = page.locator('.wb-roster-scroll');
+    await scroller.evaluate((el) => { el.scrollTop = 0; });
+    await afterPaint(page);
+    await cell(page, 1, FIXED).click();
+    expect(await focusedCell(page)).toBe(`1:${FIXED}`);
+    for (let i = 0; i < 5; i++) {
+      await page.mouse.wheel(0, 20 * ROW_HEIGHT);
+      await afterPaint(page);
+    }
+    expect(await scroller.evaluate((el) => el.scrollTop)).toBeGreaterThan(40 * ROW_HEIGHT);
+    // The active row stays in the DOM (out of the scrolled window), still focused.
+    expect(await focusedCell(page)).toBe(`1:${FIXED}`);
+    expect(await page.locator('[role="grid"] [tabindex="0"]').getAttribute('data-cell')).toBe(`1:${FIXED}`);
+    await page.keyboard.press('ArrowDown');
+    await poll(() => focusedCell(page)).toBe(`2:${FIXED}`);
+    await poll(() => scroller.evaluate((el) => el.scrollTop)).toBeLessThanOrEqual(2 * ROW_HEIGHT);
+    const rows = (await screenRows(page)).rows;
+    expect(rows.find((r) => r.rowindex === 4)?.top).toBe(HEADER_HEIGHT + 2 * ROW_HEIGHT);
+  });
+
+  it('a row that stays on screen shows an edit, its undo and its redo (double-click edits)', async () => {
+    const { page } = app;
+    const { gradebook } = project;
+    await page.locator('.wb-roster-scroll').evaluate((el) => { el.scrollTop = 0; el.scrollLeft = 0; });
+    await afterPaint(page);
+    const assessment = gradebook.assessments[0];
+    if (assessment === undefined) throw new Error('demo has no assessments');
+    const statusOf = (r: ReturnType<typeof gradeCourse>['students'][number] | undefined) =>
+      r?.lines.find((l) => l.kind === 'item' && l.assessmentId === assessment.id);
+    const graded = gradeCourse(gradebook, project.plan).students;
+    // A student on the first screen with an earned, non-zero, counted score in the first assessment.
+    const s = gradebook.scores.slice(0, 8).findIndex((row, i) => {
+      const line = statusOf(graded[i]);
+      return row[0]?.kind === 'earned' && row[0].points > 0 && line?.kind === 'item' && line.status !== 'dropped';
+    });
+    const student = gradebook.students[s];
+    const old = gradebook.scores[s]?.[0];
+    if (student === undefined || old?.kind !== 'earned') throw new Error('no such cell on the first screen');
+    const edited = applyEdit(project, { kind: 'setScore', studentIndex: s, assessmentIndex: 0, score: { kind: 'earned', points: 0 } });
+    const before = graded[s];
+    const after = gradeCourse(edited.gradebook, edited.plan).students[s];
+    if (before === undefined || after === undefined) throw new Error('engine returned no result');
+    // After the edit the engine may drop the zero (drop lowest): the cell must say so too.
+    const line = statusOf(after);
+    const dropped = line?.kind === 'item' && line.status === 'dropped';
+    const textAfter = dropped ? '0↓' : '0';
+    const labelAfter = `0 of ${assessment.possible}${dropped ? ', dropped by drop lowest' : ''}`;
+
+    const target = cell(page, s, FIXED);
+    const finalCell = cell(page, s, 2);
+    const textBefore = await target.textContent();
+    const labelBefore = await target.getAttribute('aria-label');
+    expect(textBefore).toBe(String(old.points));
+    await target.dblclick();
+    const input = page.getByLabel(`Score for ${student.name}, ${assessment.name}, of ${assessment.possible} points`);
+    await input.fill('0');
+    await input.press('Escape');
+    await poll(() => target.textContent()).toBe(textBefore); // Escape kept the old score
+    await target.dblclick();
+    await input.fill('0');
+    await input.press('Enter');
+    await poll(() => target.textContent()).toBe(textAfter);
+    expect(await target.getAttribute('aria-label')).toBe(labelAfter);
+    await poll(() => finalCell.getAttribute('data-final')).toBe(String(after.final));
+    await page.keyboard.press('Control+z');
+    await poll(() => target.textContent()).toBe(textBefore);
+    expect(await target.getAttribute('aria-label')).toBe(labelBefore);
+    await poll(() => finalCell.getAttribute('data-final')).toBe(String(before.final));
+    await page.keyboard.press('Control+Shift+z');
+    await poll(() => target.textContent()).toBe(textAfter);
+    await poll(() => finalCell.getAttribute('data-final')).toBe(String(after.final));
+    await page.keyboard.press('Control+z');
+    await poll(() => target.textContent()).toBe(textBefore);
   });
 
   it('has no axe violations (light) and writes a screenshot', async () => {

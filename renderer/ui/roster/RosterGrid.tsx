@@ -2,27 +2,46 @@
  * The virtualised students × assessments grid (ARIA grid pattern with a roving tabindex).
  *
  * Columns: 0 = student (name and ID), 1 = section, 2 = final mark, 3… = assessments. Only the
- * assessment cells are editable. The active row and column are always rendered (added to the
- * virtualiser's range) so keyboard focus never lands on an element that scrolled away.
+ * assessment cells are editable. The active row and column are always rendered (rowWindow, and the
+ * column virtualiser's range) so keyboard focus never lands on an element that scrolled away.
+ *
+ * Scrolling cost (measured with bench/scrollTrace.ts, a Chromium trace of the bench's wheel
+ * scroll): each long wheel step replaces most rows on screen, so a step costs about what building
+ * and painting one screen of rows costs — never work over the whole roster. What keeps it small:
+ * - rows are memoised (RosterRow) and get stable props, so rows that stay in view are skipped;
+ *   clicks are handled once on the grid, not by a handler per cell;
+ * - rows carry no per-row inline style: the rows on screen lie in normal flow under one top
+ *   padding. (With a `transform` per row, every row position ever shown was a new inline style,
+ *   and style recalculation grew over a long scroll: 3 → 10 ms a step over 10 000 rows.)
+ * - the three fixed columns are one sticky block per row, not three sticky cells;
+ * - the overscan rows are built after the frame (rowWindow), so the frame builds only the rows it
+ *   shows.
  */
-import { useCallback, useEffect, useId, useLayoutEffect, useRef, useState, type KeyboardEvent } from 'react';
+import { useCallback, useDeferredValue, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type CSSProperties, type KeyboardEvent, type MouseEvent } from 'react';
 import { defaultRangeExtractor, useVirtualizer, type Range } from '@tanstack/react-virtual';
 import type { Gradebook, Score } from '../../engine/model';
 import type { ItemStatus } from '../../engine/results';
 import type { ScoreTokens } from '../../bridge/contract';
 import { acceptedForms, formatScore, parseScore } from '../../engine/grading/parseScore';
-import { cellView, formatPoints } from './cellView';
+import { formatPoints } from './cellView';
+import {
+  ASSESSMENT_WIDTH, FINAL_WIDTH, FIXED, HEADER_HEIGHT, ROW_HEIGHT, RosterRow, SECTION_WIDTH, STUDENT_WIDTH, type RowEditor,
+} from './RosterRow';
+import { rowWindow } from './rowWindow';
 
-const ROW_HEIGHT = 34;
-const HEADER_HEIGHT = 58;
-const STUDENT_WIDTH = 220;
-const SECTION_WIDTH = 90;
-const FINAL_WIDTH = 80;
-const ASSESSMENT_WIDTH = 100;
-/** Fixed (sticky) columns before the assessments. */
-const FIXED = 3;
+/** Rows kept in the DOM above and below the screen. */
+const OVERSCAN_ROWS = 4;
 /** Above this many assessments, columns are virtualised too. */
 const COLUMN_VIRTUALISE_AT = 40;
+
+/** The sizes above, for roster.css (one place: these constants). */
+const SIZES = {
+  '--wb-row-h': `${ROW_HEIGHT}px`,
+  '--wb-student-w': `${STUDENT_WIDTH}px`,
+  '--wb-section-w': `${SECTION_WIDTH}px`,
+  '--wb-final-w': `${FINAL_WIDTH}px`,
+  '--wb-assessment-w': `${ASSESSMENT_WIDTH}px`,
+} as CSSProperties;
 
 export interface RosterGridProps {
   gradebook: Gradebook;
@@ -57,6 +76,15 @@ function withActive(active: number) {
   };
 }
 
+/** The cell a click landed on, from its `data-cell="row:col"`; null outside cells and in the editor. */
+function cellAt(target: EventTarget): Active | null {
+  if (!(target instanceof Element)) return null;
+  const el = target.closest('[data-cell]');
+  if (el === null || el.classList.contains('wb-cell-editing')) return null;
+  const [r, c] = (el.getAttribute('data-cell') ?? '').split(':').map(Number);
+  return r === undefined || c === undefined || !Number.isInteger(r) || !Number.isInteger(c) ? null : { row: r, col: c };
+}
+
 export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onSetScore }: RosterGridProps) {
   const gridId = useId();
   const scrollRef = useRef<HTMLDivElement>(null);
@@ -71,26 +99,44 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
   const row = Math.min(active.row, Math.max(0, rowCount - 1));
   const col = Math.min(active.col, colCount - 1);
 
+  // The row virtualiser gives the rows on screen; the overscan and the active row are added by
+  // rowWindow (the overscan after the frame, see there).
   const rowVirtualizer = useVirtualizer({
     count: rowCount,
     getScrollElement: () => scrollRef.current,
     estimateSize: () => ROW_HEIGHT,
-    overscan: 8,
+    overscan: 0,
     scrollPaddingStart: HEADER_HEIGHT,
-    rangeExtractor: withActive(row),
   });
+  // A stable range extractor: a new one each render would give the column virtualiser a new
+  // window array each render, and every memoised row would re-render.
+  const colRange = useMemo(() => withActive(col - FIXED), [col]);
   const virtualiseColumns = assessments.length > COLUMN_VIRTUALISE_AT;
   const colVirtualizer = useVirtualizer({
     horizontal: true,
     count: assessments.length,
     getScrollElement: () => scrollRef.current,
     estimateSize: () => ASSESSMENT_WIDTH,
-    overscan: virtualiseColumns ? 4 : assessments.length,
+    overscan: virtualiseColumns ? 2 : assessments.length,
     scrollPaddingStart: STUDENT_WIDTH + SECTION_WIDTH + FINAL_WIDTH,
-    rangeExtractor: withActive(col - FIXED),
+    rangeExtractor: colRange,
   });
 
-  const virtualRows = rowVirtualizer.getVirtualItems();
+  rowVirtualizer.getVirtualItems(); // brings `range` (the rows on screen) up to date
+  const first = rowVirtualizer.range?.startIndex ?? 0;
+  const last = rowVirtualizer.range?.endIndex ?? -1;
+  const settledFirst = useDeferredValue(first);
+  const settledLast = useDeferredValue(last);
+  const shown = useMemo(
+    () => rowWindow({ count: rowCount, first, last, settledFirst, settledLast, overscan: OVERSCAN_ROWS, active: row }),
+    [rowCount, first, last, settledFirst, settledLast, row],
+  );
+  const rowTop = (i: number) => rowVirtualizer.measurementsCache[i]?.start ?? i * ROW_HEIGHT;
+  // The run's rows lie in normal flow under a top padding (no per-row inline style).
+  const flowTop = shown.to >= shown.from ? rowTop(shown.from) : 0;
+  const rowIndexes: number[] = [];
+  for (let i = shown.from; i <= shown.to; i++) rowIndexes.push(i);
+  if (shown.detached !== null) rowIndexes.push(shown.detached);
   const virtualCols = colVirtualizer.getVirtualItems();
   const firstColStart = virtualCols[0]?.start ?? 0;
   const totalWidth = STUDENT_WIDTH + SECTION_WIDTH + FINAL_WIDTH + colVirtualizer.getTotalSize();
@@ -170,6 +216,16 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
     if (handled) e.preventDefault();
   };
 
+  // One click and one double-click handler for every cell (rows hold none).
+  const onGridClick = (e: MouseEvent<HTMLDivElement>) => {
+    const at = cellAt(e.target);
+    if (at !== null) setActive(at);
+  };
+  const onGridDoubleClick = (e: MouseEvent<HTMLDivElement>) => {
+    const at = cellAt(e.target);
+    if (at !== null) startEdit(at.row, at.col);
+  };
+
   const onEditorKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
     if (editing === null) return;
     if (e.key === 'Escape') {
@@ -196,6 +252,19 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
   }, [rows, gradebook.assessments]);
 
   const errorId = `${gridId}-edit-error`;
+  const editor: RowEditor | null = editing === null ? null : {
+    col: editing.col,
+    text: editing.text,
+    error: editing.error,
+    errorId,
+    hint: acceptedForms(tokens),
+    onChange: (e) => setEditing({ ...editing, text: e.target.value, error: null }),
+    onKeyDown: onEditorKeyDown,
+    onBlur: () => {
+      // Leaving the field with a bad value keeps nothing: the old score stays.
+      if (editing.error === null) commit();
+    },
+  };
 
   return (
     <div ref={scrollRef} className="wb-roster-scroll">
@@ -206,15 +275,19 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
         aria-colcount={colCount}
         aria-readonly={false}
         className="wb-roster-grid"
-        style={{ width: totalWidth, height: HEADER_HEIGHT + rowVirtualizer.getTotalSize() }}
+        style={{ ...SIZES, width: totalWidth, height: HEADER_HEIGHT + rowVirtualizer.getTotalSize() }}
         onKeyDown={onGridKeyDown}
+        onClick={onGridClick}
+        onDoubleClick={onGridDoubleClick}
       >
         <div role="rowgroup" className="wb-roster-head" style={{ width: totalWidth, height: HEADER_HEIGHT }}>
           <div role="row" aria-rowindex={1} className="wb-roster-row wb-roster-head-row" style={{ height: HEADER_HEIGHT }}>
-            <div role="columnheader" aria-colindex={1} className="wb-cell wb-fixed wb-fixed-0" style={{ width: STUDENT_WIDTH }}>Student</div>
-            <div role="columnheader" aria-colindex={2} className="wb-cell wb-fixed wb-fixed-1" style={{ width: SECTION_WIDTH, left: STUDENT_WIDTH }}>Section</div>
-            <div role="columnheader" aria-colindex={3} className="wb-cell wb-fixed wb-fixed-2 wb-num" style={{ width: FINAL_WIDTH, left: STUDENT_WIDTH + SECTION_WIDTH }}>Final</div>
-            <div aria-hidden="true" style={{ width: firstColStart, flex: 'none' }} />
+            <div className="wb-fixed-group">
+              <div role="columnheader" aria-colindex={1} className="wb-cell wb-fixed wb-fixed-0">Student</div>
+              <div role="columnheader" aria-colindex={2} className="wb-cell wb-fixed wb-fixed-1">Section</div>
+              <div role="columnheader" aria-colindex={3} className="wb-cell wb-fixed wb-fixed-2 wb-num">Final</div>
+            </div>
+            <div aria-hidden="true" className="wb-col-spacer" style={{ width: firstColStart }} />
             {virtualCols.map((vc) => {
               const a = assessments[vc.index];
               if (a === undefined) return null;
@@ -224,7 +297,6 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
                   role="columnheader"
                   aria-colindex={FIXED + vc.index + 1}
                   className="wb-cell wb-num wb-assessment-head"
-                  style={{ width: ASSESSMENT_WIDTH }}
                   title={a.name}
                 >
                   <span className="wb-head-name">{a.name}</span>
@@ -234,93 +306,26 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
             })}
           </div>
         </div>
-        <div role="rowgroup" className="wb-roster-body">
-          {virtualRows.map((vr) => {
-            const studentIndex = rows[vr.index];
+        <div role="rowgroup" className="wb-roster-body" style={{ paddingTop: flowTop }}>
+          {rowIndexes.map((index) => {
+            const studentIndex = rows[index];
             const student = studentIndex === undefined ? undefined : gradebook.students[studentIndex];
             if (studentIndex === undefined || student === undefined) return null;
-            const statuses = statusesFor(student.id);
-            const scoreRow = gradebook.scores[studentIndex];
-            const final = finalFor(student.id);
-            const isEditingRow = editing?.row === vr.index;
-            const tab = (c: number) => (vr.index === row && c === col ? 0 : -1);
-            const common = (c: number) => ({
-              'data-cell': `${vr.index}:${c}`,
-              tabIndex: tab(c),
-              onClick: () => setActive({ row: vr.index, col: c }),
-              onDoubleClick: () => startEdit(vr.index, c),
-            });
             return (
-              <div
+              <RosterRow
                 key={student.id}
-                role="row"
-                aria-rowindex={vr.index + 2}
-                className={`wb-roster-row${vr.index % 2 === 1 ? ' wb-row-odd' : ''}${isEditingRow ? ' wb-row-editing' : ''}`}
-                style={{ height: ROW_HEIGHT, transform: `translateY(${HEADER_HEIGHT + vr.start}px)`, width: totalWidth }}
-              >
-                <div role="rowheader" aria-colindex={1} className="wb-cell wb-fixed wb-fixed-0 wb-student" style={{ width: STUDENT_WIDTH }} {...common(0)}>
-                  <span className="wb-student-name">{student.name}</span>
-                  <span className="wb-student-id">{student.id}</span>
-                </div>
-                <div role="gridcell" aria-colindex={2} aria-readonly={true} className="wb-cell wb-fixed wb-fixed-1" style={{ width: SECTION_WIDTH, left: STUDENT_WIDTH }} {...common(1)}>
-                  {student.section}
-                </div>
-                <div role="gridcell" aria-colindex={3} aria-readonly={true} className="wb-cell wb-fixed wb-fixed-2 wb-num wb-final" style={{ width: FINAL_WIDTH, left: STUDENT_WIDTH + SECTION_WIDTH }} {...common(2)}
-                  aria-label={final === null ? 'no final mark' : `final ${final} %`}
-                  data-final={final === null ? '' : String(final)}
-                >
-                  {final === null ? 'no mark' : `${final}`}
-                </div>
-                <div aria-hidden="true" style={{ width: firstColStart, flex: 'none' }} />
-                {virtualCols.map((vc) => {
-                  const a = assessments[vc.index];
-                  if (a === undefined) return null;
-                  const c = FIXED + vc.index;
-                  const view = cellView(scoreRow?.[vc.index], a.possible, statuses.get(a.id));
-                  const isEditing = editing !== null && editing.row === vr.index && editing.col === c;
-                  if (isEditing) {
-                    return (
-                      <div key={a.id} role="gridcell" aria-colindex={c + 1} className="wb-cell wb-num wb-cell-editing" style={{ width: ASSESSMENT_WIDTH }} data-cell={`${vr.index}:${c}`}>
-                        <input
-                          autoFocus
-                          className="wb-cell-input"
-                          aria-label={`Score for ${student.name}, ${a.name}, of ${formatPoints(a.possible)} points`}
-                          aria-invalid={editing.error !== null}
-                          aria-describedby={editing.error !== null ? errorId : `${errorId}-hint`}
-                          value={editing.text}
-                          onChange={(e) => setEditing({ ...editing, text: e.target.value, error: null })}
-                          onKeyDown={onEditorKeyDown}
-                          onBlur={() => {
-                            // Leaving the field with a bad value keeps nothing: the old score stays.
-                            if (editing.error === null) commit();
-                          }}
-                        />
-                        <span id={`${errorId}-hint`} className="wb-visually-hidden">{acceptedForms(tokens)}</span>
-                        {editing.error !== null && (
-                          <span id={errorId} className="wb-cell-error" role="alert">
-                            Not changed: {editing.error}
-                          </span>
-                        )}
-                      </div>
-                    );
-                  }
-                  return (
-                    <div
-                      key={a.id}
-                      role="gridcell"
-                      aria-colindex={c + 1}
-                      aria-label={view.label}
-                      className={`wb-cell wb-num wb-cell-${view.state}${view.dropped ? ' wb-cell-dropped' : ''}`}
-                      data-state={view.state}
-                      data-dropped={view.dropped ? 'true' : undefined}
-                      style={{ width: ASSESSMENT_WIDTH }}
-                      {...common(c)}
-                    >
-                      {view.dropped ? <><s>{view.text}</s><span aria-hidden="true">↓</span></> : view.text}
-                    </div>
-                  );
-                })}
-              </div>
+                index={index}
+                detachedTop={index === shown.detached ? rowTop(index) : null}
+                student={student}
+                scores={gradebook.scores[studentIndex]}
+                statuses={statusesFor(student.id)}
+                final={finalFor(student.id)}
+                assessments={assessments}
+                cols={virtualCols}
+                firstColStart={firstColStart}
+                activeCol={index === row ? col : -1}
+                editor={editing !== null && editing.row === index ? editor : null}
+              />
             );
           })}
         </div>
