@@ -166,6 +166,8 @@ describe('Sections workspace (browser)', () => {
     // The tables are built when their toggle opens.
     const toggles = app.page.locator('.wb-chart-table > summary');
     for (const summary of await toggles.all()) await summary.click();
+    // The toggle event (and so the build) follows the click in a later task.
+    await expect.poll(() => app.page.locator('.wb-chart-table table').count()).toBe(await toggles.count());
     const figures = await app.page.locator('figure.wb-chart').evaluateAll((els) =>
       els.map((e) => ({ chart: e.getAttribute('data-chart'), tabindex: e.getAttribute('tabindex'), labelledBy: e.getAttribute('aria-labelledby'), tables: e.parentElement?.querySelectorAll('details table').length ?? 0 })),
     );
@@ -176,7 +178,7 @@ describe('Sections workspace (browser)', () => {
       expect(f.tables).toBe(1);
     }
     for (const summary of await toggles.all()) await summary.click();
-    expect(await app.page.locator('.wb-chart-table table').count()).toBe(0);
+    await expect.poll(() => app.page.locator('.wb-chart-table table').count()).toBe(0);
   });
 
   it('histogram: the bins drawn are histogram()’s bins for each rule', async () => {
@@ -263,6 +265,7 @@ describe('Sections workspace (browser)', () => {
     // The pairwise sentences are built when their toggle opens.
     const inWords = panel.locator('details').filter({ hasText: 'The same, in sentences' });
     await inWords.locator('summary').click();
+    await expect.poll(() => inWords.locator('li').count()).toBe(c.pairs.length);
     expect(await inWords.locator('li').allTextContents()).toEqual(c.pairs.map((p) => p.sentence));
     await inWords.locator('summary').click();
     const items = itemAnalysis(project.gradebook, project.plan);
@@ -287,7 +290,7 @@ describe('Sections workspace (browser)', () => {
   it('light mode: no axe violations with every text alternative open; no CSP or console errors; screenshot', async () => {
     const { page } = app;
     await page.getByTestId('comparison').waitFor();
-    for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
+    await openEveryToggle(page);
     const results = await runAxe(page);
     expect(describeViolations(results)).toEqual([]);
     expect(app.pageErrors).toEqual([]);
@@ -295,6 +298,13 @@ describe('Sections workspace (browser)', () => {
     await screenshot(page, 'sections-light');
   });
 });
+
+/** Opens every toggle of the workspace and waits until each chart's table has been built. */
+async function openEveryToggle(page: AppSession['page']): Promise<void> {
+  for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
+  const charts = await page.locator('.wb-chart-table').count();
+  await expect.poll(() => page.locator('.wb-chart-table table').count()).toBe(charts);
+}
 
 describe('Sections workspace in dark mode (browser)', () => {
   let app: AppSession;
@@ -308,7 +318,7 @@ describe('Sections workspace in dark mode (browser)', () => {
 
   it('no axe violations (colour contrast included) and a screenshot', async () => {
     const { page } = app;
-    for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
+    await openEveryToggle(page);
     expect(describeViolations(await runAxe(page))).toEqual([]);
     for (const summary of await page.locator('.wb-sections details > summary').all()) await summary.click();
     await screenshot(page, 'sections-dark');
