@@ -7,6 +7,7 @@ import type { CourseProject } from '../bridge/contract';
 import { useBridge } from '../bridge/BridgeContext';
 import type { CourseResult } from '../engine/grading/gradeCourse';
 import { CourseGrading } from './courseGrading';
+import { QuietTimer } from './quietTimer';
 import {
   DEFAULT_HISTORY_LIMIT,
   historyReducer,
@@ -48,8 +49,10 @@ export interface CourseStore {
 
 const CourseStoreContext = createContext<CourseStore | null>(null);
 
-/** Quiet period after the last change before the recovery copy is written. */
+/** Quiet period (no change, no input) before the recovery copy is written. */
 export const AUTOSAVE_DELAY_MS = 2000;
+/** The recovery copy is never older than this after a change, however busy the user is. */
+export const AUTOSAVE_MAX_DELAY_MS = 30_000;
 
 export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_LIMIT }: { children: ReactNode; historyLimit?: number }) {
   const bridge = useBridge();
@@ -69,16 +72,37 @@ export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_L
     return grading.current.grade(gradebook, plan);
   }, [gradebook, plan]); // the two parts the engine reads: a title edit does not regrade
 
-  // Autosave: a debounced recovery copy after every change that is not on disk.
-  useEffect(() => {
-    if (project === null || !dirty) return;
-    const timer = setTimeout(() => {
-      void bridge.writeRecovery(projectPath, project).then((r) => {
+  // Autosave: a recovery copy of every change that is not on disk, written when the user pauses
+  // (quietTimer.ts: no change and no input for AUTOSAVE_DELAY_MS, at the latest AUTOSAVE_MAX_DELAY_MS
+  // after the first unsaved change). The latest course is read when the timer fires.
+  const latest = useRef({ project, projectPath });
+  latest.current = { project, projectPath };
+  const autosave = useRef<QuietTimer | null>(null);
+  autosave.current ??= new QuietTimer(
+    () => {
+      const { project: p, projectPath: path } = latest.current;
+      if (p === null) return;
+      void bridge.writeRecovery(path, p).then((r) => {
         if (r.ok) setLastAutosave(r.value.savedAt);
       });
-    }, AUTOSAVE_DELAY_MS);
-    return () => clearTimeout(timer);
-  }, [bridge, project, projectPath, dirty]);
+    },
+    AUTOSAVE_DELAY_MS,
+    AUTOSAVE_MAX_DELAY_MS,
+  );
+  useEffect(() => {
+    if (project === null || !dirty) autosave.current?.cancel();
+    else autosave.current?.change();
+  }, [project, projectPath, dirty]);
+  useEffect(() => {
+    const timer = autosave.current;
+    const input = (): void => timer?.activity();
+    const kinds = ['keydown', 'wheel', 'pointerdown'] as const;
+    for (const kind of kinds) window.addEventListener(kind, input, { passive: true, capture: true });
+    return () => {
+      for (const kind of kinds) window.removeEventListener(kind, input, { capture: true });
+      timer?.cancel();
+    };
+  }, []);
 
   // Tell the shell (when there is one) so closing the window can ask about unsaved changes.
   useEffect(() => {
