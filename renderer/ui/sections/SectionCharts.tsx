@@ -209,7 +209,7 @@ export function LetterFigure({ dist }: { dist: LetterDistribution }) {
         </table>
       )}
     >
-      <Legend sections={dist.sections} />
+      <p className="wb-hint">One row per section; a darker cell is a larger share of that section's students with a letter. The number in a cell is its count of students.</p>
       {missing.length > 0 && <p className="wb-hint">Students without a mark are not in the shares: {missing.map((s) => `${s}: ${dist.noLetter[s]}`).join(', ')}.</p>}
     </ChartFigure>
   );

@@ -8,7 +8,8 @@
  * styles, so it is removed and the same rules live in sections.css (see `stripPlotStyle`).
  *
  * Marks carry `className`s that tests and CSS use to find them: wb-box, wb-whisker, wb-median,
- * wb-outlier, wb-bin, wb-cutoff, wb-ecdf-step, wb-ecdf-mark, wb-letter-bar.
+ * wb-outlier, wb-bin, wb-cutoff, wb-ecdf-step, wb-ecdf-mark, wb-letter-bar (the letter grid's cells),
+ * wb-letter-count.
  */
 import * as Plot from '@observablehq/plot';
 import type { Bin } from '../../engine/stats/histogram';
@@ -174,22 +175,39 @@ export function ecdfChart(doc: Document, series: readonly EcdfSeries[], at: numb
 }
 
 /** Share of each letter per section, one panel per section. */
+/**
+ * Letter grades as a grid: one row per section, one column per letter (highest first), each cell
+ * shaded by the share of the section's students with that letter and labelled with the count. A
+ * grouped bar per section and letter stops being readable beyond a handful of sections (at 40
+ * sections × 12 letters a bar is narrower than a pixel); a grid of shares stays readable and keeps
+ * every number on the chart. The count is drawn in a colour chosen against the cell's shade.
+ */
 export function letterChart(doc: Document, data: readonly LetterDatum[], letters: readonly string[], sections: readonly string[]): SVGSVGElement | HTMLElement {
+  const row = 22;
+  const maxShare = Math.max(0.01, ...data.map((d) => d.share));
   return stripPlotStyle(
     Plot.plot({
       document: doc,
       width: CHART_WIDTH,
-      height: 260,
-      marginLeft: 50,
-      marginBottom: 40,
+      height: 40 + 30 + row * sections.length,
+      marginLeft: 60,
+      marginTop: 40,
+      marginBottom: 30,
+      padding: 0.06,
       ariaLabel: 'Letter-grade distribution per section',
-      fx: { domain: sections, label: 'Section' },
-      x: { domain: letters, label: null, tickSize: 0 },
-      y: { label: 'Share of section', tickFormat: '.0%', grid: true },
-      color: { domain: sections, scheme: COLOR_SCHEME },
+      x: { domain: letters, label: null, axis: 'top', tickSize: 0 },
+      y: { domain: sections, label: 'Section', tickSize: 0 },
+      color: { type: 'linear', domain: [0, maxShare], range: ['#eef3fb', '#1f4e99'], label: 'Share of section', legend: false },
       marks: [
-        Plot.barY(data, { fx: 'section', x: 'letter', y: 'share', fill: 'section', title: (d: LetterDatum) => `${d.section}, ${d.letter}: ${d.count} (${f2(d.share * 100)} %)`, className: 'wb-letter-bar' }),
-        Plot.ruleY([0]),
+        Plot.cell(data, { x: 'letter', y: 'section', fill: 'share', title: (d: LetterDatum) => `${d.section}, ${d.letter}: ${d.count} (${f2(d.share * 100)} %)`, className: 'wb-letter-bar' }),
+        Plot.text(data, {
+          x: 'letter',
+          y: 'section',
+          text: (d: LetterDatum) => (d.count === 0 ? '' : String(d.count)),
+          fill: (d: LetterDatum) => (d.share > maxShare * 0.55 ? '#ffffff' : '#111111'),
+          className: 'wb-letter-count',
+          ariaHidden: 'true',
+        }),
       ],
     }),
   );
