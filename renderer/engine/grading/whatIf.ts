@@ -21,7 +21,7 @@
 import type { GradeScale, Gradebook, GradingPlan, Score } from '../model';
 import type { StudentResult } from '../results';
 import { defined, notDefined, type Defined } from '../defined';
-import { applyAdjustments } from './adjustments';
+import { adjustedValueOf } from './adjustments';
 import { usableDecimals } from './checkPlan';
 import { layoutFor, weighStudent } from './gradeCourse';
 import { sortedCutoffs } from './gradeScale';
@@ -49,12 +49,26 @@ export interface BoundaryEntry {
 const STEPS_PER_PERCENT = 100;
 const TOP = 100 * STEPS_PER_PERCENT;
 
-export function neededOnPending(book: Gradebook, plan: GradingPlan, studentIndex: number): readonly NeededForCutoff[] {
+/**
+ * What the student needs on pending work for each cutoff (see the header). `othersWeighted`: every
+ * student's projected weighted percent (fast/projectedWeighted.ts), for a caller that shows several
+ * students of one course and computes it once; computed here with the plain engine when absent.
+ * @throws {RangeError} when there is no student at `studentIndex`
+ */
+export function neededOnPending(
+  book: Gradebook,
+  plan: GradingPlan,
+  studentIndex: number,
+  othersWeighted?: readonly (number | null)[],
+): readonly NeededForCutoff[] {
   const student = book.students[studentIndex];
   if (student === undefined) throw new RangeError(`neededOnPending: no student at index ${studentIndex}`);
   const projected: GradingPlan = { ...plan, markMode: 'projected' };
   const layout = layoutFor(book, projected);
-  const others = book.students.map((s, i) => weighStudent(s, book.scores[i] ?? [], layout, projected).weighted);
+  const others =
+    othersWeighted !== undefined && othersWeighted.length === book.students.length
+      ? othersWeighted
+      : book.students.map((s, i) => weighStudent(s, book.scores[i] ?? [], layout, projected).weighted);
   const sections = book.students.map((s) => s.section);
   const row = book.scores[studentIndex] ?? [];
   const decimals = usableDecimals(plan.rounding.decimals);
@@ -72,7 +86,7 @@ export function neededOnPending(book: Gradebook, plan: GradingPlan, studentIndex
     for (const it of pending) filled[it.index] = { kind: 'earned', points: (step * it.possible) / TOP };
     const values = others.slice();
     values[studentIndex] = weighStudent(student, filled, layout, projected).weighted;
-    const adjusted = applyAdjustments(values, sections, plan.adjustments).values[studentIndex] ?? null;
+    const adjusted = adjustedValueOf(values, sections, plan.adjustments, studentIndex);
     const final = adjusted === null || !Number.isFinite(adjusted) ? null : roundHalfUp(adjusted, decimals);
     cache.set(step, final);
     return final;

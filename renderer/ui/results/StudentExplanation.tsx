@@ -7,8 +7,20 @@ import type { CourseProject } from '../../bridge/contract';
 import type { ExplanationLine, StudentResult } from '../../engine/results';
 import { describeLine, type LineNames } from '../../engine/grading/explain';
 import { neededOnPending } from '../../engine/grading/whatIf';
+import { projectedWeighted } from '../../engine/fast/projectedWeighted';
+import type { Gradebook, GradingPlan } from '../../engine/model';
 import { CATEGORY_STATUS_WORDS, categoryLines, formatPercent, formatShare, itemLines } from './resultsAccess';
 
+
+/** Every student's projected weighted percent, once per (gradebook, plan) however many students are shown. */
+const projectedCache = new WeakMap<Gradebook, WeakMap<GradingPlan, readonly (number | null)[]>>();
+function othersWeighted(book: Gradebook, plan: GradingPlan): readonly (number | null)[] {
+  let byPlan = projectedCache.get(book);
+  if (byPlan === undefined) projectedCache.set(book, (byPlan = new WeakMap()));
+  let values = byPlan.get(plan);
+  if (values === undefined) byPlan.set(plan, (values = projectedWeighted(book, plan)));
+  return values;
+}
 
 export function lineNames(project: CourseProject): LineNames {
   const categories = new Map(project.plan.categories.map((c) => [c.id, c.name]));
@@ -29,7 +41,7 @@ export function StudentExplanation({ project, result, studentIndex }: StudentExp
   const student = project.gradebook.students[studentIndex];
   const names = useMemo(() => lineNames(project), [project]);
   const needed = useMemo(
-    () => neededOnPending(project.gradebook, project.plan, studentIndex),
+    () => neededOnPending(project.gradebook, project.plan, studentIndex, othersWeighted(project.gradebook, project.plan)),
     [project.gradebook, project.plan, studentIndex],
   );
   if (student === undefined || result === undefined) return null;

@@ -44,7 +44,7 @@ const categoryArb = (id: string): fc.Arbitrary<Category> =>
     droppedForCourse: fc.oneof({ weight: 9, arbitrary: fc.constant(false) }, { weight: 1, arbitrary: fc.constant(true) }),
   });
 
-const adjustmentArb: fc.Arbitrary<Adjustment> = fc.oneof(
+export const adjustmentArb: fc.Arbitrary<Adjustment> = fc.oneof(
   fc.record({ kind: fc.constant('addPoints' as const), section: fc.constantFrom(null, 'A', 'B', 'Z'), points: fc.oneof(fc.double({ min: -5, max: 5, noNaN: true }), fc.constant(Number.NaN)) }),
   fc.record({ kind: fc.constant('scaleToMean' as const), section: fc.constantFrom(null, 'A', 'B', 'Z'), targetMean: fc.oneof(fc.constantFrom(75, 80), fc.double({ min: 0, max: 95, noNaN: true })) }),
   fc.record({ kind: fc.constant('cap' as const), section: fc.constantFrom(null, 'A', 'A2'), maxPercent: fc.constantFrom(100, 95, 88.5) }),

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { applyAdjustments } from '../../../renderer/engine/grading/adjustments';
+import { adjustedValueOf, applyAdjustments } from '../../../renderer/engine/grading/adjustments';
+import { adjustmentArb } from '../fast/arbitraries';
 import { gradeCourse } from '../../../renderer/engine/grading/gradeCourse';
 import { book, category, E, plan, type Column } from './helpers';
 
@@ -96,5 +97,20 @@ describe('adjustments in gradeCourse', () => {
       { kind: 'adjustment', adjustment: { kind: 'cap', section: 'B', maxPercent: 90 }, before: 95, after: 90 },
     ]);
     expect(mean([a1!.adjusted!, a2!.adjusted!])).toBeCloseTo(75, 12);
+  });
+});
+
+describe('adjustedValueOf equals applyAdjustments for one student', () => {
+  it('on random marks, sections and adjustment lists (non-finite parameters and empty groups included)', () => {
+    const marks = fc.array(fc.record({ value: fc.option(fc.double({ min: -10, max: 120, noNaN: true }), { freq: 5 }), section: fc.constantFrom('A', 'B', 'A2') }), { minLength: 1, maxLength: 12 });
+    fc.assert(
+      fc.property(marks, fc.array(adjustmentArb, { maxLength: 4 }), fc.nat(), (rows, adjustments, pick) => {
+        const values = rows.map((r) => r.value);
+        const sections = rows.map((r) => r.section);
+        const i = pick % rows.length;
+        expect(adjustedValueOf(values, sections, adjustments, i)).toBe(applyAdjustments(values, sections, adjustments).values[i] ?? null);
+      }),
+      { numRuns: 3000 },
+    );
   });
 });
