@@ -2,6 +2,7 @@
  * Reading and rewriting the entries of a workbook's ZIP container with SheetJS's bundled CFB
  * library (XLSX.CFB; typed `any` upstream, narrowed here to what the tests use).
  */
+import { inflateRawSync } from 'node:zlib';
 import * as XLSX from 'xlsx';
 
 interface Container {
@@ -60,6 +61,20 @@ export interface RawEntry {
   readonly data: Uint8Array;
   /** Declared uncompressed size; defaults to the data's length. */
   readonly declaredSize?: number;
+  /**
+   * CRC-32 to record; defaults to the CRC of the unpacked bytes (for method 8, of what the data
+   * inflates to — 0 when it does not inflate), as a well-behaved writer records it.
+   */
+  readonly crc?: number;
+}
+
+function unpackedCrc(e: RawEntry): number {
+  if (e.method === 0) return crc32(e.data);
+  try {
+    return crc32(inflateRawSync(e.data));
+  } catch {
+    return 0;
+  }
 }
 
 /**
@@ -72,7 +87,7 @@ export function rawZip(entries: readonly RawEntry[]): Uint8Array {
   let offset = 0;
   for (const e of entries) {
     const name = new TextEncoder().encode(e.name);
-    const crc = e.method === 0 ? crc32(e.data) : 0;
+    const crc = e.crc ?? unpackedCrc(e);
     const usize = e.declaredSize ?? e.data.length;
     const local = new DataView(new ArrayBuffer(30));
     local.setUint32(0, 0x04034b50, true);

@@ -16,7 +16,7 @@ import * as XLSX from 'xlsx';
 import type { ImportProblem, TextEncoding, WorkbookPreview } from '../../../renderer/bridge/contract';
 import { fileProblem, problemAt } from './problems';
 import { decodeText, detectAndDecode } from './textEncoding';
-import { declaredUnzippedBytes } from './zipCheck';
+import { damagedZipEntry, declaredUnzippedBytes } from './zipCheck';
 
 /**
  * The most a workbook may unpack to, declared or real. SheetJS allocates an entry's declared size
@@ -132,6 +132,13 @@ function readZip(bytes: Uint8Array, fileName: string): ReadResult {
     return fail(
       'too-large',
       `The file "${fileName}" says it expands to ${Math.ceil(declared / (1024 * 1024))} MB when unpacked, more than the ${MAX_UNZIPPED_BYTES / (1024 * 1024)} MB a gradebook workbook may hold, so it was not opened. It is probably damaged: ${FIX_SAVE_AGAIN}`,
+    );
+  }
+  const damaged = damagedZipEntry(buf, MAX_UNZIPPED_BYTES);
+  if (damaged !== null) {
+    return fail(
+      'corrupt-file',
+      `The file "${fileName}" is damaged: its part "${damaged.slice(0, 200)}" does not unpack to the contents its checksum records, so it was not read. ${FIX_SAVE_AGAIN}`,
     );
   }
   let format: 'xlsx' | 'ods';

@@ -9,6 +9,8 @@
  * A directory it cannot read returns null and the parser decides (it reports a damaged file in
  * the user's words).
  */
+import { crc32, inflateRawSync } from 'node:zlib';
+
 const EOCD = 0x06054b50;
 const CENTRAL = 0x02014b50;
 
@@ -48,6 +50,59 @@ function zip64Size(view: DataView, start: number, length: number): number | null
     const len = view.getUint16(p + 2, true);
     if (id === 0x0001 && len >= 8 && p + 12 <= view.byteLength) return Number(view.getBigUint64(p + 4, true));
     p += 4 + len;
+  }
+  return null;
+}
+
+const LOCAL = 0x04034b50;
+
+/**
+ * The first entry whose unpacked bytes do not match the CRC-32 its central directory records
+ * (APPNOTE.TXT §4.4.7), or that cannot be unpacked at all; null when every stored or deflated
+ * entry checks out, or when the directory cannot be read (the parser then decides). SheetJS does
+ * not check the CRCs, and a damaged deflate stream can inflate to XML of any shape — references to
+ * millions of rows among it — which it then builds a sheet from; a failed checksum names the
+ * damage before that. Entries are unpacked with native inflate, each bounded by `maxBytes`.
+ *
+ * Cost: one more inflate of every entry (native, a few ms per MB of sheet XML).
+ */
+export function damagedZipEntry(bytes: Uint8Array, maxBytes: number): string | null {
+  if (bytes.length < 22 || bytes[0] !== 0x50 || bytes[1] !== 0x4b) return null;
+  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  let end = -1;
+  for (let i = bytes.length - 22; i >= Math.max(0, bytes.length - 65_557); i--) {
+    if (view.getUint32(i, true) === EOCD) {
+      end = i;
+      break;
+    }
+  }
+  if (end < 0) return null;
+  const count = view.getUint16(end + 10, true);
+  let at = view.getUint32(end + 16, true);
+  for (let n = 0; n < count; n++) {
+    if (at + 46 > bytes.length || view.getUint32(at, true) !== CENTRAL) return null;
+    const method = view.getUint16(at + 10, true);
+    const crc = view.getUint32(at + 16, true);
+    const compressed = view.getUint32(at + 20, true);
+    const nameLen = view.getUint16(at + 28, true);
+    const extraLen = view.getUint16(at + 30, true);
+    const commentLen = view.getUint16(at + 32, true);
+    const local = view.getUint32(at + 42, true);
+    const name = new TextDecoder('utf-8', { fatal: false }).decode(bytes.subarray(at + 46, at + 46 + nameLen));
+    at += 46 + nameLen + extraLen + commentLen;
+    // Zip64 sizes or offsets, and methods other than stored and deflated, are left to the parser.
+    if (compressed === 0xffffffff || local === 0xffffffff || (method !== 0 && method !== 8)) continue;
+    if (local + 30 > bytes.length || view.getUint32(local, true) !== LOCAL) return name;
+    const start = local + 30 + view.getUint16(local + 26, true) + view.getUint16(local + 28, true);
+    if (start + compressed > bytes.length) return name;
+    const data = bytes.subarray(start, start + compressed);
+    let unpacked: Uint8Array;
+    try {
+      unpacked = method === 0 ? data : inflateRawSync(data, { maxOutputLength: maxBytes });
+    } catch {
+      return name;
+    }
+    if (crc32(unpacked) !== crc) return name;
   }
   return null;
 }

@@ -75,8 +75,25 @@ describe('damaged ZIP entries', () => {
     if (r.ok) return;
     expect(r.problem.code).toBe('corrupt-file');
     expect(r.problem.message).toBe(
-      'The file "cut.xlsx" could not be read: it looks damaged or incomplete (its parts could not be unpacked and read as a workbook). Open it in your spreadsheet program and save it again as .xlsx, .ods or .csv, or export a fresh copy.',
+      'The file "cut.xlsx" is damaged: its part "xl/worksheets/sheet1.xml" does not unpack to the contents its checksum records, so it was not read. Open it in your spreadsheet program and save it again as .xlsx, .ods or .csv, or export a fresh copy.',
     );
+  });
+
+  it('an entry whose bytes do not match its recorded CRC-32 is refused, naming the part (APPNOTE.TXT §4.4.7)', () => {
+    // Found by the long fuzz suite: one flipped byte in the demo workbook's deflated sheet inflated
+    // to XML that SheetJS built a sheet of 2 GB from; the CRC shows the damage first.
+    const bytes = withSheetEntry((name, data) => ({ name, method: 8, data: deflateRawSync(data), declaredSize: data.length, crc: 0x12345678 }));
+    const r = readBook(bytes, 'flipped.xlsx');
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    expect(r.problem.code).toBe('corrupt-file');
+    expect(r.problem.message).toContain('its part "xl/worksheets/sheet1.xml" does not unpack to the contents its checksum records');
+  });
+
+  it('a stored entry with a wrong CRC-32 is refused too', () => {
+    const bytes = withSheetEntry((name, data) => ({ name, method: 0, data, crc: 1 }));
+    const r = readBook(bytes, 'stored.xlsx');
+    expect(r.ok).toBe(false);
   });
 
   it('an intact deflated sheet still reads', () => {
