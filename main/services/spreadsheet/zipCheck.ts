@@ -14,19 +14,25 @@ import { crc32, inflateRawSync } from 'node:zlib';
 const EOCD = 0x06054b50;
 const CENTRAL = 0x02014b50;
 
-export function declaredUnzippedBytes(bytes: Uint8Array): number | null {
+/**
+ * The archive's central directory: where it starts and how many entries it lists, from the end
+ * record (which is within the last 65 557 bytes: 22 + a comment of at most 65 535); null when
+ * the bytes are not a ZIP or have no end record.
+ */
+function centralDirectory(bytes: Uint8Array): { view: DataView; start: number; count: number } | null {
   if (bytes.length < 22 || bytes[0] !== 0x50 || bytes[1] !== 0x4b) return null;
   const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  let end = -1;
   for (let i = bytes.length - 22; i >= Math.max(0, bytes.length - 65_557); i--) {
-    if (view.getUint32(i, true) === EOCD) {
-      end = i;
-      break;
-    }
+    if (view.getUint32(i, true) === EOCD) return { view, start: view.getUint32(i + 16, true), count: view.getUint16(i + 10, true) };
   }
-  if (end < 0) return null;
-  const count = view.getUint16(end + 10, true);
-  let at = view.getUint32(end + 16, true);
+  return null;
+}
+
+export function declaredUnzippedBytes(bytes: Uint8Array): number | null {
+  const dir = centralDirectory(bytes);
+  if (dir === null) return null;
+  const { view, count } = dir;
+  let at = dir.start;
   let total = 0;
   for (let n = 0; n < count; n++) {
     if (at + 46 > bytes.length || view.getUint32(at, true) !== CENTRAL) return total > 0 ? total : null;
@@ -67,18 +73,10 @@ const LOCAL = 0x04034b50;
  * Cost: one more inflate of every entry (native, a few ms per MB of sheet XML).
  */
 export function damagedZipEntry(bytes: Uint8Array, maxBytes: number): string | null {
-  if (bytes.length < 22 || bytes[0] !== 0x50 || bytes[1] !== 0x4b) return null;
-  const view = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  let end = -1;
-  for (let i = bytes.length - 22; i >= Math.max(0, bytes.length - 65_557); i--) {
-    if (view.getUint32(i, true) === EOCD) {
-      end = i;
-      break;
-    }
-  }
-  if (end < 0) return null;
-  const count = view.getUint16(end + 10, true);
-  let at = view.getUint32(end + 16, true);
+  const dir = centralDirectory(bytes);
+  if (dir === null) return null;
+  const { view, count } = dir;
+  let at = dir.start;
   for (let n = 0; n < count; n++) {
     if (at + 46 > bytes.length || view.getUint32(at, true) !== CENTRAL) return null;
     const method = view.getUint16(at + 10, true);
