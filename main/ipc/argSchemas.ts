@@ -31,6 +31,8 @@ const suggestedNameSchema = z.string().max(255);
 
 /** The project path a recovery copy belongs to; null for a course never saved. */
 const projectPathOrNull = absolutePathSchema.nullable();
+/** The longest course JSON the recovery copy accepts (about V8's longest string, 2²⁹ − 24 characters). */
+export const MAX_PROJECT_JSON_CHARS = 500_000_000;
 
 const noArgs = z.tuple([]);
 
@@ -55,7 +57,8 @@ export const argSchemas: ArgSchemaTable = {
         path: ['projectPath'],
       }),
   ]),
-  writeRecovery: z.tuple([projectPathOrNull, courseProjectSchema]),
+  // The JSON text is parsed and checked against courseProjectSchema by the recovery store.
+  writeRecovery: z.tuple([projectPathOrNull, z.string().min(2).max(MAX_PROJECT_JSON_CHARS)]),
   readRecovery: noArgs,
   discardRecovery: noArgs,
   recentFiles: noArgs,
@@ -72,7 +75,7 @@ export const argNames: { readonly [M in BridgeMethod]: readonly string[] } = {
   loadProject: ['path'],
   saveProject: ['path', 'project'],
   exportFinals: ['request'],
-  writeRecovery: ['projectPath', 'project'],
+  writeRecovery: ['projectPath', 'projectJson'],
   readRecovery: [],
   discardRecovery: [],
   recentFiles: [],

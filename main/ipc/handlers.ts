@@ -85,7 +85,7 @@ export function createHandlersFrom(services: BridgeServices, deps: BridgeDeps): 
     // The request carries the open project's path (`projectPath`), so the export can refuse to
     // replace it; it is passed on whole.
     exportFinals: (request) => services.exportFinals(request),
-    writeRecovery: (projectPath, project) => services.writeRecovery(projectPath, project),
+    writeRecovery: (projectPath, projectJson) => services.writeRecovery(projectPath, projectJson),
     readRecovery: () => services.readRecovery(),
     discardRecovery: () => services.discardRecovery(),
     recentFiles: () => services.recentFiles(),

@@ -53,7 +53,7 @@ export function nodeServices(deps: BridgeDeps): BridgeServices {
     saveProject: (path, project) => saveProject(path, project),
     // dispatchBridgeCall has validated the request against exportRequestSchema already.
     exportFinals: (request) => writeExport(request),
-    writeRecovery: (projectPath, project) => recovery.write(projectPath, project),
+    writeRecovery: (projectPath, projectJson) => recovery.writeJson(projectPath, projectJson),
     readRecovery: () => recovery.read(),
     discardRecovery: () => recovery.discard(),
     recentFiles: () => recent.list(),

@@ -201,7 +201,12 @@ export interface DesktopBridge {
   loadProject(path: string): Promise<Result<CourseProject>>;
   saveProject(path: string, project: CourseProject): Promise<Result<{ path: string; savedAt: string }>>;
   exportFinals(request: ExportRequest): Promise<Result<{ path: string; rows: number }>>;
-  writeRecovery(projectPath: string | null, project: CourseProject): Promise<Result<{ savedAt: string }>>;
+  /**
+   * The recovery copy of unsaved work. `projectJson` is JSON.stringify of the CourseProject: the
+   * renderer serialises it in slices (a course of 10 000 students is tens of megabytes of JSON,
+   * too long to build in one task), and the main process parses and validates it.
+   */
+  writeRecovery(projectPath: string | null, projectJson: string): Promise<Result<{ savedAt: string }>>;
   readRecovery(): Promise<Result<RecoveryInfo | null>>;
   discardRecovery(): Promise<Result<null>>;
   recentFiles(): Promise<Result<readonly string[]>>;

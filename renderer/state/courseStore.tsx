@@ -7,7 +7,9 @@ import type { CourseProject } from '../bridge/contract';
 import { useBridge } from '../bridge/BridgeContext';
 import type { CourseResult } from '../engine/grading/gradeCourse';
 import { CourseGrading } from './courseGrading';
+import { projectJsonSteps } from './projectJson';
 import { QuietTimer } from './quietTimer';
+import { runInSlices } from './slices';
 import {
   DEFAULT_HISTORY_LIMIT,
   historyReducer,
@@ -53,6 +55,8 @@ const CourseStoreContext = createContext<CourseStore | null>(null);
 export const AUTOSAVE_DELAY_MS = 2000;
 /** The recovery copy is never older than this after a change, however busy the user is. */
 export const AUTOSAVE_MAX_DELAY_MS = 30_000;
+/** Longest task of the recovery copy's serialisation. */
+const SERIALISE_SLICE_MS = 8;
 
 export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_LIMIT }: { children: ReactNode; historyLimit?: number }) {
   const bridge = useBridge();
@@ -78,13 +82,23 @@ export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_L
   const latest = useRef({ project, projectPath });
   latest.current = { project, projectPath };
   const autosave = useRef<QuietTimer | null>(null);
+  // The course is serialised in slices (projectJson.ts), so even a large one never stalls the page.
+  const serialising = useRef<(() => void) | null>(null);
   autosave.current ??= new QuietTimer(
     () => {
       const { project: p, projectPath: path } = latest.current;
       if (p === null) return;
-      void bridge.writeRecovery(path, p).then((r) => {
-        if (r.ok) setLastAutosave(r.value.savedAt);
-      });
+      serialising.current?.();
+      serialising.current = runInSlices(
+        () => projectJsonSteps(p),
+        (json) => {
+          serialising.current = null;
+          void bridge.writeRecovery(path, json).then((r) => {
+            if (r.ok) setLastAutosave(r.value.savedAt);
+          });
+        },
+        SERIALISE_SLICE_MS,
+      );
     },
     AUTOSAVE_DELAY_MS,
     AUTOSAVE_MAX_DELAY_MS,
@@ -101,6 +115,7 @@ export function CourseStoreProvider({ children, historyLimit = DEFAULT_HISTORY_L
     return () => {
       for (const kind of kinds) window.removeEventListener(kind, input, { capture: true });
       timer?.cancel();
+      serialising.current?.();
     };
   }, []);
 

@@ -71,7 +71,7 @@ describe('bridge over the real services', () => {
   });
 
   it('writes, reads and discards the recovery copy', async () => {
-    const written = value<{ savedAt: string }>(await dispatchBridgeCall(handlers, 'writeRecovery', [null, demo]));
+    const written = value<{ savedAt: string }>(await dispatchBridgeCall(handlers, 'writeRecovery', [null, JSON.stringify(demo)]));
     const read = value<{ savedAt: string; projectPath: string | null; project: CourseProject }>(await dispatchBridgeCall(handlers, 'readRecovery', []));
     expect(read).toEqual({ savedAt: written.savedAt, projectPath: null, project: demo });
     expect(await dispatchBridgeCall(handlers, 'discardRecovery', [])).toEqual({ ok: true, value: null });

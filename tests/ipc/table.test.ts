@@ -48,7 +48,7 @@ const validArgs: { [M in (typeof bridgeMethods)[number]]: unknown[] } = {
   loadProject: [abs],
   saveProject: [abs, project],
   exportFinals: [{ path: abs, format: 'csv', project, columns: [{ field: 'id', header: 'ID' }], include: { breakdown: false, sectionStatistics: false, assessmentStatistics: false }, overwrite: false }],
-  writeRecovery: [null, project],
+  writeRecovery: [null, JSON.stringify(project)],
   readRecovery: [],
   discardRecovery: [],
   recentFiles: [],

@@ -37,6 +37,8 @@ const recoveryFormat: VersionedFormat<z.output<typeof recoveryDocumentSchema>> =
 
 export interface RecoveryStore {
   write(projectPath: string | null, project: CourseProject): Promise<Result<{ savedAt: string }>>;
+  /** write() of a project given as JSON text (what the renderer sends); refused unless it parses and validates. */
+  writeJson(projectPath: string | null, projectJson: string): Promise<Result<{ savedAt: string }>>;
   /** The recovery copy, null when there is none; a damaged copy is a failure, not a half-load. */
   read(): Promise<Result<RecoveryInfo | null>>;
   discard(): Promise<Result<null>>;
@@ -44,7 +46,7 @@ export interface RecoveryStore {
 
 export function createRecoveryStore(dir: string, now: () => Date = () => new Date()): RecoveryStore {
   const file = join(dir, RECOVERY_FILE_NAME);
-  return {
+  const store: RecoveryStore = {
     async write(projectPath, project) {
       const valid = courseProjectSchema.safeParse(project);
       if (!valid.success) return fail('bad-input', `The recovery copy was not written: ${describeIssues(valid.error, ['project'])}.`);
@@ -57,6 +59,15 @@ export function createRecoveryStore(dir: string, now: () => Date = () => new Dat
         return ioFailure('Writing the recovery copy', file, error);
       }
       return ok({ savedAt });
+    },
+    async writeJson(projectPath, projectJson) {
+      let project: unknown;
+      try {
+        project = JSON.parse(projectJson);
+      } catch {
+        return fail('bad-input', 'The recovery copy was not written: the course sent for it is not valid JSON.');
+      }
+      return store.write(projectPath, project as CourseProject); // write() validates it
     },
     async read() {
       const text = await readTextFile(file, 'recovery copy');
@@ -75,4 +86,5 @@ export function createRecoveryStore(dir: string, now: () => Date = () => new Dat
       return ok(null);
     },
   };
+  return store;
 }

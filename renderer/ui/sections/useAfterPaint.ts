@@ -10,6 +10,7 @@
  * again. A change of owner or name while the work runs abandons it.
  */
 import { useEffect, useRef, useState } from 'react';
+import { runInSlices } from '../../state/slices';
 
 /** Longest stretch of work between two chances for the browser to paint or handle input. */
 export const SLICE_MS = 12;
@@ -17,6 +18,11 @@ export const SLICE_MS = 12;
 export type AfterPaint<T> = { readonly ready: true; readonly value: T } | { readonly ready: false };
 
 const finished = new WeakMap<object, Map<string, unknown>>();
+
+/** A value already known, as a generator that is done at once. */
+function* known<T>(value: T): Generator<unknown, T> {
+  return value;
+}
 
 /**
  * @param owner what the value is computed from (null: nothing to compute; never ready)
@@ -30,47 +36,32 @@ export function useAfterPaint<T>(owner: object | null, name: string, steps: () =
 
   useEffect(() => {
     if (owner === null) return;
-    let stopped = false;
-    let work: Generator<unknown, T> | null = null;
-    const channel = new MessageChannel();
-    const slice = () => {
-      if (stopped) return;
-      let byName = finished.get(owner);
-      if (byName?.has(name) === true) {
-        // Known already: still shown only after the first paint, which it must not hold up.
-        setShown({ owner, name, value: byName.get(name) as T });
-        return;
-      }
-      const until = performance.now() + SLICE_MS;
-      work ??= latest.current();
-      for (;;) {
-        const next = work.next();
-        if (next.done === true) {
-          if (byName === undefined) finished.set(owner, (byName = new Map()));
-          byName.set(name, next.value);
-          setShown({ owner, name, value: next.value });
-          return;
-        }
-        if (performance.now() >= until) break;
-      }
-      channel.port2.postMessage(null); // a task, not a timer: no 4 ms clamp between slices
-    };
-    channel.port1.onmessage = slice;
-    // A task queued from requestAnimationFrame runs once that frame has been produced; the timer
-    // starts the work anyway when no frame comes (a hidden window).
+    let cancel: (() => void) | null = null;
     let started = false;
     const start = () => {
       if (started) return;
       started = true;
-      channel.port2.postMessage(null);
+      cancel = runInSlices(
+        // Known already: still shown only after the first paint (in the first slice's task), which it must not hold up.
+        () => (finished.get(owner)?.has(name) === true ? known(finished.get(owner)!.get(name) as T) : latest.current()),
+        (value) => {
+          let byName = finished.get(owner);
+          if (byName === undefined) finished.set(owner, (byName = new Map()));
+          byName.set(name, value);
+          setShown({ owner, name, value });
+        },
+        SLICE_MS,
+      );
     };
+    // A task queued from requestAnimationFrame runs once that frame has been produced; the timer
+    // starts the work anyway when no frame comes (a hidden window).
     const frame = requestAnimationFrame(start);
     const timer = setTimeout(start, 250);
     return () => {
-      stopped = true;
+      started = true;
       cancelAnimationFrame(frame);
       clearTimeout(timer);
-      channel.port1.close();
+      cancel?.();
     };
   }, [owner, name]);
 

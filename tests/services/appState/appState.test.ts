@@ -32,6 +32,20 @@ describe('recovery store', () => {
     expect((await store.discard()).ok).toBe(true);
   });
 
+  it('writes a course sent as JSON text exactly as the course itself, and refuses text that is not a valid course', async () => {
+    const store = createRecoveryStore(join(dir, 'state'), () => new Date('2025-05-05T05:05:05.000Z'));
+    const project = sampleProject();
+    expect(await store.writeJson(null, JSON.stringify(project))).toEqual({ ok: true, value: { savedAt: '2025-05-05T05:05:05.000Z' } });
+    expect(await store.read()).toEqual({ ok: true, value: { savedAt: '2025-05-05T05:05:05.000Z', projectPath: null, project } });
+    const notJson = await store.writeJson(null, '{"title": ');
+    expect(notJson.ok).toBe(false);
+    if (!notJson.ok) expect(notJson.message).toBe('The recovery copy was not written: the course sent for it is not valid JSON.');
+    const notACourse = await store.writeJson(null, JSON.stringify({ ...project, gradebook: { ...project.gradebook, scores: 'none' } }));
+    expect(notACourse.ok).toBe(false);
+    // Neither refusal touched the copy already written.
+    expect(await store.read()).toEqual({ ok: true, value: { savedAt: '2025-05-05T05:05:05.000Z', projectPath: null, project } });
+  });
+
   it('reports a damaged recovery copy instead of loading it', async () => {
     const store = createRecoveryStore(dir);
     await store.write(null, sampleProject());
