@@ -26,6 +26,13 @@ import { bridgeMethods, createBridgeHandlers, dispatchBridgeCall } from '../ipc/
 import { securityHeaders } from '../ipc/contentSecurity';
 
 export const TOKEN_HEADER = 'x-weighbridge-token';
+/**
+ * Content type of a call whose last argument is a long text: the other arguments as a JSON array,
+ * a newline (JSON text has none outside strings, where it is escaped), then the text as it is.
+ */
+export const RAW_TEXT_TYPE = 'application/x-weighbridge-args';
+/** From this length on the page sends a last text argument raw. */
+const RAW_TEXT_MIN_CHARS = 1 << 20;
 /** Largest accepted RPC body: a 10 000-student course as JSON is a few MB. */
 const MAX_BODY_BYTES = 64 * 1024 * 1024;
 
@@ -64,10 +71,14 @@ export const harnessBridgeScript = `'use strict';
       var args = Array.prototype.slice.call(arguments);
       // JSON has no undefined: drop trailing ones so optional arguments stay absent.
       while (args.length > 0 && args[args.length - 1] === undefined) args.pop();
+      // A long text as the last argument (the recovery copy's JSON) goes after the others as it
+      // is: escaping tens of megabytes into a JSON body would be one long task on the page.
+      var last = args[args.length - 1];
+      var raw = typeof last === 'string' && last.length > ${RAW_TEXT_MIN_CHARS};
       return fetch('./rpc/' + method, {
         method: 'POST',
-        headers: { 'content-type': 'application/json', '${TOKEN_HEADER}': token },
-        body: JSON.stringify(args),
+        headers: { 'content-type': raw ? '${RAW_TEXT_TYPE}' : 'application/json', '${TOKEN_HEADER}': token },
+        body: raw ? new Blob([JSON.stringify(args.slice(0, -1)), '\\n', last]) : JSON.stringify(args),
         credentials: 'omit',
         cache: 'no-store'
       }).then(function (response) {
@@ -168,12 +179,21 @@ export async function startHarness(opts: HarnessOptions = {}): Promise<Harness> 
     if (url.pathname.startsWith('/rpc/')) {
       if (req.method !== 'POST') return send(res, 405, 'Use POST.');
       if (!tokenMatches(tokenBytes, req.headers[TOKEN_HEADER])) return send(res, 401, 'Missing or wrong harness token.');
-      if (!(req.headers['content-type'] ?? '').startsWith('application/json')) return send(res, 415, 'Send JSON.');
+      const type = req.headers['content-type'] ?? '';
+      const rawText = type.startsWith(RAW_TEXT_TYPE);
+      if (!type.startsWith('application/json') && !rawText) return send(res, 415, 'Send JSON.');
       const body = await readBody(req);
       if (body === null) return send(res, 413, 'Request too large.');
       let args: unknown;
       try {
-        args = JSON.parse(body);
+        if (rawText) {
+          const cut = body.indexOf('\n');
+          if (cut < 0) throw new Error('no newline');
+          const head: unknown = JSON.parse(body.slice(0, cut));
+          args = Array.isArray(head) ? [...(head as unknown[]), body.slice(cut + 1)] : head; // a non-array is refused by dispatch
+        } else {
+          args = JSON.parse(body);
+        }
       } catch {
         return send(res, 400, JSON.stringify({ ok: false, code: 'bad-payload', message: 'The request body is not JSON.' }), contentTypes['.json']);
       }

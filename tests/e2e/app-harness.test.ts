@@ -8,7 +8,7 @@ import { existsSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { startHarness, TOKEN_HEADER, type Harness } from '../../main/harness/server';
+import { RAW_TEXT_TYPE, startHarness, TOKEN_HEADER, type Harness } from '../../main/harness/server';
 import { contentSecurityPolicy } from '../../main/ipc/contentSecurity';
 import { repoRoot } from './harness';
 
@@ -91,6 +91,20 @@ describe('browser harness server', () => {
     expect(bad).toMatchObject({ ok: false, code: 'bad-payload' });
     const notJson = await send(base, '/rpc/recentFiles', { method: 'POST', headers: { 'content-type': 'application/json', [TOKEN_HEADER]: harness.token }, body: '{' });
     expect(notJson.status).toBe(400);
+  });
+
+  it('takes a long last text raw after the other arguments, and refuses such a body without its newline', async () => {
+    const headers = { 'content-type': RAW_TEXT_TYPE, [TOKEN_HEADER]: harness.token };
+    const demo = JSON.parse((await rpc('demoCourse', [])).body) as { ok: true; value: unknown };
+    const text = JSON.stringify(demo.value);
+    const ok = await send(base, '/rpc/writeRecovery', { method: 'POST', headers, body: `[null]\n${text}` });
+    expect(JSON.parse(ok.body)).toMatchObject({ ok: true });
+    const back = JSON.parse((await rpc('readRecovery', [])).body) as { ok: true; value: { project: unknown } };
+    expect(back.value.project).toEqual(demo.value);
+    const cut = await send(base, '/rpc/writeRecovery', { method: 'POST', headers, body: '[null]' });
+    expect(cut.status).toBe(400);
+    const notArray = JSON.parse((await send(base, '/rpc/writeRecovery', { method: 'POST', headers, body: `{"a":1}\n${text}` })).body) as { ok: boolean; code: string };
+    expect(notArray).toMatchObject({ ok: false, code: 'bad-payload' });
   });
 
   it('reports that there are no native dialogs, so the page asks for a path', async () => {

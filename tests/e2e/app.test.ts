@@ -147,6 +147,25 @@ describe('app frame', { timeout: 90_000 }, () => {
     expect(await page.getByRole('banner').getByRole('heading', { level: 1 }).textContent()).toBe(title);
   });
 
+  it('sends a long recovery text through the page’s bridge as it is, and reads the same course back', async () => {
+    const { page } = await start();
+    // Notes of 2 000 000 characters, with the characters JSON must escape, push the text past the
+    // length from which the harness bridge sends it raw (main/harness/server.ts).
+    const result = await page.evaluate(async () => {
+      const demo = await window.weighbridge!.demoCourse();
+      if (!demo.ok) return { sent: demo, back: null, notes: '' };
+      const notes = 'quote " backslash \\ newline \n tab \t ünïcödé '.repeat(60_000).slice(0, 2_000_000);
+      const project = { ...demo.value, notes };
+      const sent = await window.weighbridge!.writeRecovery(null, JSON.stringify(project));
+      const back = await window.weighbridge!.readRecovery();
+      return { sent, back, notes };
+    });
+    expect(result.sent.ok).toBe(true);
+    const back = result.back as Result<{ project: CourseProject } | null> | null;
+    expect(back?.ok && back.value?.project.notes).toBe(result.notes);
+    expect(result.notes.length).toBe(2_000_000);
+  });
+
   it('offers the recovery copy on the next start and restores it as unsaved work', async () => {
     const dir = await tempDir();
     const userDataDir = join(dir, 'user-data');
