@@ -94,7 +94,7 @@ const scoreGridSchema = z.unknown().transform((grid, ctx): Score[][] => {
   if (Array.isArray(grid) && grid.every((row) => Array.isArray(row) && row.every(isPlainScore))) return grid as Score[][];
   const parsed = zodScoreGrid.safeParse(grid);
   if (parsed.success) return parsed.data;
-  for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, code: 'custom', message: issue.message, path: issue.path });
+  for (const issue of parsed.error.issues) ctx.addIssue({ ...issue, code: 'custom' });
   return z.NEVER;
 });
 

@@ -58,7 +58,7 @@ describe('projectJsonSteps', () => {
 
 describe('runInSlices', () => {
   it('finishes the work over several tasks and hands over its value', async () => {
-    let tasks = 0;
+    let starts = 0;
     function* work(): Generator<void, number> {
       let sum = 0;
       for (let i = 1; i <= 50; i++) {
@@ -70,12 +70,12 @@ describe('runInSlices', () => {
     const value = await new Promise<number>((resolve) => {
       // A slice of 0 ms: one step per task.
       runInSlices(() => {
-        tasks++;
+        starts++;
         return work();
       }, resolve, 0);
     });
     expect(value).toBe(1275);
-    expect(tasks).toBe(1); // the work is started once and continued, not restarted
+    expect(starts).toBe(1); // the work is started once and continued, not restarted
   });
 
   it('stops when cancelled', async () => {

@@ -139,6 +139,24 @@ export function waiverCodes(compiled: CompiledPlan, student: Pick<Student, 'id' 
   });
 }
 
+/** Distinct section names in first-appearance order, and each name's index (added when new). */
+export function sectionList(): { readonly sections: string[]; indexOf(section: string): number } {
+  const sections: string[] = [];
+  const index = new Map<string, number>();
+  return {
+    sections,
+    indexOf(section) {
+      let k = index.get(section);
+      if (k === undefined) {
+        k = sections.length;
+        sections.push(section);
+        index.set(section, k);
+      }
+      return k;
+    },
+  };
+}
+
 export function compileCourse(book: Gradebook, plan: GradingPlan): CompiledCourse {
   const compiled = compilePlan(book.assessments, plan);
   const S = book.students.length;
@@ -147,17 +165,10 @@ export function compileCourse(book: Gradebook, plan: GradingPlan): CompiledCours
   const earned = new Float64Array(S * A);
   const state = new Uint8Array(S * A).fill(MISSING); // absent cells are missing, as in gradeCourse
   const waived = new Uint8Array(S * C);
-  const sections: string[] = [];
-  const sectionIndex = new Map<string, number>();
+  const { sections, indexOf } = sectionList();
   const sectionOf = new Int32Array(S);
   book.students.forEach((student, s) => {
-    let k = sectionIndex.get(student.section);
-    if (k === undefined) {
-      k = sections.length;
-      sections.push(student.section);
-      sectionIndex.set(student.section, k);
-    }
-    sectionOf[s] = k;
+    sectionOf[s] = indexOf(student.section);
     const row = book.scores[s] ?? [];
     const base = s * A;
     const n = Math.min(row.length, A);

@@ -13,7 +13,7 @@
  * Memory O(S) numbers + O(A) buffer; time O(S·A).
  */
 import type { Assessment, GradingPlan, Score, Student } from '../model';
-import { COUNTED, NOTHING_GRADED, compilePlan, earnedPoints, waiverCodes, type CompiledCourse, type CompiledPlan } from './compileCourse';
+import { COUNTED, NOTHING_GRADED, compilePlan, earnedPoints, sectionList, waiverCodes, type CompiledCourse, type CompiledPlan } from './compileCourse';
 import { categoryPercent, finishGrades, scratchFor, type FastGrades, type Scratch } from './gradeCompiled';
 
 export interface RowBuffer {
@@ -62,8 +62,7 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
   let sectionOf = new Int32Array(1024);
   let status = new Uint8Array(1024 * C);
   const students: Student[] = [];
-  const sections: string[] = [];
-  const sectionIndex = new Map<string, number>();
+  const { sections, indexOf: sectionIndexOf } = sectionList();
 
   function grow(): void {
     const size = weighted.length * 2;
@@ -88,13 +87,7 @@ export function createStreamGrader(assessments: readonly Assessment[], plan: Gra
       const s = students.length;
       if (s === weighted.length) grow();
       students.push(student);
-      let k = sectionIndex.get(student.section);
-      if (k === undefined) {
-        k = sections.length;
-        sections.push(student.section);
-        sectionIndex.set(student.section, k);
-      }
-      sectionOf[s] = k;
+      sectionOf[s] = sectionIndexOf(student.section);
       waiverCodes(compiled, student, codes);
       let num = 0;
       let den = 0;
