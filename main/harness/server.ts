@@ -15,7 +15,7 @@
  * Run directly (`npx tsx main/harness/server.ts [--port N] [--user-data DIR]`) it prints the URL.
  */
 import { randomBytes, timingSafeEqual } from 'node:crypto';
-import { createReadStream } from 'node:fs';
+import { createReadStream, existsSync } from 'node:fs';
 import { mkdtemp, readFile, stat } from 'node:fs/promises';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
@@ -24,6 +24,7 @@ import { extname, join, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { bridgeMethods, createBridgeHandlers, dispatchBridgeCall } from '../ipc/index';
 import { securityHeaders } from '../ipc/contentSecurity';
+import { BUNDLED_WORKER_NAME, defaultWorkerEntry, type WorkerEntry } from '../services/untrusted';
 
 export const TOKEN_HEADER = 'x-weighbridge-token';
 /**
@@ -102,6 +103,18 @@ export interface HarnessOptions {
   readonly userDataDir?: string;
   /** The built renderer; default dist/renderer beside this repo. */
   readonly rendererDir?: string;
+  /**
+   * The spreadsheet-parsing worker. Default: the bundled one the desktop app ships
+   * (dist/main/importWorker.mjs, from `npm run build:main`) when it has been built, else the
+   * source worker run through tsx (same code, slower to start).
+   */
+  readonly importWorker?: WorkerEntry;
+}
+
+/** See HarnessOptions.importWorker. */
+function harnessImportWorker(): WorkerEntry {
+  const built = join(repoRoot(), 'dist', 'main', BUNDLED_WORKER_NAME);
+  return existsSync(built) ? { kind: 'file', path: built } : defaultWorkerEntry();
 }
 
 export interface Harness {
@@ -154,7 +167,15 @@ export async function startHarness(opts: HarnessOptions = {}): Promise<Harness> 
     throw new Error(`The harness found no built renderer at ${indexPath}. Run "npm run build:renderer" first.`);
   }
   const userDataDir = opts.userDataDir ?? (await mkdtemp(join(tmpdir(), 'weighbridge-harness-')));
-  const handlers = createBridgeHandlers({ userDataDir, dialogs: null, appRoot: repoRoot() });
+  // Spreadsheets are parsed in the same worker, with the same size, time and heap limits, as in
+  // the desktop app (main/shell/index.ts), so a file that hangs a parser is stopped here too.
+  const handlers = createBridgeHandlers({
+    userDataDir,
+    dialogs: null,
+    appRoot: repoRoot(),
+    isolateImports: true,
+    importWorker: opts.importWorker ?? harnessImportWorker(),
+  });
   const token = randomBytes(32).toString('hex');
   const tokenBytes = Buffer.from(token, 'utf8');
   const bridgeScript = harnessBridgeScript.replace('METHODS', JSON.stringify(bridgeMethods));

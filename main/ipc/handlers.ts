@@ -4,7 +4,7 @@
  * `dispatchBridgeCall`; handlers return Results and do not throw on expected failures.
  */
 import type { DesktopBridge, FileKind, Result } from '../../renderer/bridge/contract';
-import type { ImportLimits } from '../services/untrusted';
+import type { ImportLimits, WorkerEntry } from '../services/untrusted';
 import type { BridgeHandlers } from './dispatch';
 import { failure } from './dispatch';
 
@@ -23,10 +23,12 @@ export interface BridgeDeps {
   readonly appRoot?: string;
   /**
    * Parse spreadsheets in a worker thread (main/services/untrusted) rather than in this process.
-   * The Electron shell sets it; the browser harness, whose server holds nothing but the course,
-   * reads directly.
+   * The Electron shell and the browser harness set it; without it (tests of the direct reading)
+   * only the size limit applies.
    */
   readonly isolateImports?: boolean;
+  /** The parsing worker's code (with isolateImports); defaultWorkerEntry() when absent. */
+  readonly importWorker?: WorkerEntry;
   /**
    * Size, time and heap limits for reading (the direct reading applies the size only); the defaults of
    * main/services/untrusted when absent. The limits of each request (ImportLimitsRequest) override them.

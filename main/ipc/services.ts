@@ -17,7 +17,11 @@ export function nodeServices(deps: BridgeDeps): BridgeServices {
   const recovery = createRecoveryStore(deps.userDataDir);
   const recent = createRecentFiles(deps.userDataDir);
   const base = deps.importLimits;
-  // The direct reading (browser harness) has no worker to stop, so only the size limit applies there.
+  const isolated = (limits: ImportLimitsRequest | undefined) => ({
+    limits: limitsFromRequest(limits, base),
+    ...(deps.importWorker === undefined ? {} : { workerEntry: deps.importWorker }),
+  });
+  // The direct reading has no worker to stop, so only the size limit applies there.
   const checkDirectSize = async (path: string, request: ImportLimitsRequest | undefined): Promise<Result<null>> => {
     const limits = resolveLimits(limitsFromRequest(request, base));
     return limits.ok ? checkFileSize(path, limits.limits.maxBytes) : limits;
@@ -29,10 +33,10 @@ export function nodeServices(deps: BridgeDeps): BridgeServices {
           // the process that holds the window and the user's other files.
           previewSpreadsheet: (path, override) => {
             const { limits, ...read } = override ?? {};
-            return previewSpreadsheetIsolated(path, { limits: limitsFromRequest(limits, base), override: read });
+            return previewSpreadsheetIsolated(path, { ...isolated(limits), override: read });
           },
-          importSpreadsheet: (path, layout, limits) => importSpreadsheetIsolated(path, layout, { limits: limitsFromRequest(limits, base) }),
-          previewMerge: (current, path, layout, limits) => previewMergeIsolated(current, path, layout, { limits: limitsFromRequest(limits, base) }),
+          importSpreadsheet: (path, layout, limits) => importSpreadsheetIsolated(path, layout, isolated(limits)),
+          previewMerge: (current, path, layout, limits) => previewMergeIsolated(current, path, layout, isolated(limits)),
         }
       : {
           previewSpreadsheet: async (path, override) => {

@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { RAW_TEXT_TYPE, startHarness, TOKEN_HEADER, type Harness } from '../../main/harness/server';
 import { contentSecurityPolicy } from '../../main/ipc/contentSecurity';
+import { previewSpreadsheet } from '../../main/services/spreadsheet';
 import { repoRoot } from './harness';
 
 interface Reply {
@@ -143,5 +144,54 @@ describe('browser harness server', () => {
     expect(encoded.body).not.toContain('"devDependencies"');
     const missing = await send(base, '/nope.js', {});
     expect(missing.status).toBe(404);
+  });
+});
+
+describe('browser harness spreadsheet reading', () => {
+  // The harness parses spreadsheets in the desktop app's worker (main/services/untrusted), so its
+  // time limit stops a parse that never ends. A stand-in worker that announces itself ready and then
+  // spins on every job plays a parser caught in an endless loop.
+  const spinningWorker = {
+    kind: 'eval' as const,
+    code: "const { parentPort } = require('node:worker_threads'); parentPort.postMessage({ type: 'ready' }); parentPort.on('message', () => { for (;;) {} });",
+  };
+
+  it('stops a parse that never ends at the time limit, in the limit message’s words', async () => {
+    const userDataDir = await mkdtemp(join(tmpdir(), 'weighbridge-harness-test-'));
+    const harness = await startHarness({ userDataDir, importWorker: spinningWorker });
+    try {
+      const base = new URL(harness.url);
+      const file = join(repoRoot, 'demo-data', 'glaciology-231.csv');
+      const reply = await send(base, '/rpc/previewSpreadsheet', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', [TOKEN_HEADER]: harness.token },
+        body: JSON.stringify([file, { limits: { maxSeconds: 1 } }]),
+      });
+      const result = JSON.parse(reply.body) as { ok: boolean; code?: string; message?: string };
+      expect(result).toMatchObject({ ok: false, code: 'timeout' });
+      expect(result.message).toContain('Reading "glaciology-231.csv" took longer than 1 s and was stopped.');
+    } finally {
+      await harness.close();
+      await rm(userDataDir, { recursive: true, force: true });
+    }
+  });
+
+  it('reads through the same worker by default and gets the service’s answer', async () => {
+    const userDataDir = await mkdtemp(join(tmpdir(), 'weighbridge-harness-test-'));
+    const harness = await startHarness({ userDataDir });
+    try {
+      const base = new URL(harness.url);
+      const file = join(repoRoot, 'demo-data', 'glaciology-231.csv');
+      const reply = await send(base, '/rpc/previewSpreadsheet', {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', [TOKEN_HEADER]: harness.token },
+        body: JSON.stringify([file, {}]),
+      });
+      const direct = await previewSpreadsheet(file);
+      expect(JSON.parse(reply.body)).toEqual(JSON.parse(JSON.stringify(direct)));
+    } finally {
+      await harness.close();
+      await rm(userDataDir, { recursive: true, force: true });
+    }
   });
 });
