@@ -8,8 +8,9 @@
  * all of them are divided by a common factor. So when every snapped value is a multiple of 10⁴
  * (points in hundredths — whole and half points always are) we compare the quotients, and when
  * every product that can occur stays below 2⁵³ the comparisons are exact in binary64 too; we then
- * get the plain choice without BigInt. Otherwise we return false and the caller uses the plain
- * functions. Property-tested equal to them (tests/engine/fast/).
+ * get the plain choice without BigInt. Whole and half points — nearly every gradebook — are compared
+ * as they are, with no snapping at all (halvesExact). Otherwise we return false and the caller uses
+ * the plain functions. Property-tested equal to them (tests/engine/fast/).
  *
  * Cost O(N·n) per round with no allocation (n items, N dropped; both small).
  */
@@ -35,36 +36,52 @@ export function dropScratch(size: number): DropScratch {
 }
 
 /**
- * Snap to millionths as dropLowest.ts does, then to hundredths when all allow it. False when the
- * integers are too large for exact double products (the caller then uses the plain functions).
+ * The common case, decided on the points as they are: every earned and possible value a multiple
+ * of ½ (possible > 0) and (100·Σ|e| + 1)·(100·Σp + 1) < 2⁵² (the hundredths bound below). Then:
+ *   - the plain module's snapped values are the hundredths x·100 exactly (for x = k/2, x·10⁶ =
+ *     5·10⁵·k is exact, its snap is itself, a multiple of 10⁴, and its quotient by 10⁴ is 50·k);
+ *   - every product of two values is a multiple of ¼ below Σ|e|·Σp < 2⁵²/10⁴ < 2⁴⁰, and so is every
+ *     difference of two products: all exact in binary64 (a multiple of ¼ below 2⁵¹ is);
+ *   - each key and cross product on the hundredths is exactly 10⁴ times the one on the points.
+ * So every comparison below has the same outcome on the points as on the plain module's integers,
+ * and the points need no rounding or scaling work.
  */
-function snapAll(earned: Float64Array, possible: Float64Array, n: number, s: DropScratch): boolean {
-  return snapHalves(earned, possible, n, s) || snapMillionths(earned, possible, n, s);
+function halvesExact(earned: Float64Array, possible: Float64Array, n: number): boolean {
+  let absE = 0;
+  let sumP = 0;
+  for (let i = 0; i < n; i++) {
+    const p = possible[i]!;
+    if (!isHalfOrWhole(earned[i]!) || !isHalfOrWhole(p) || !(p > 0)) return false;
+    absE += Math.abs(earned[i]!);
+    sumP += p;
+  }
+  return halvesBoundHolds(absE, sumP);
+}
+
+/** x is a multiple of ½ (NaN and ±∞ are not). */
+export function isHalfOrWhole(x: number): boolean {
+  const x2 = x * 2;
+  return x2 === Math.floor(x2);
+}
+
+/** The hundredths bound of halvesExact, from Σ|e| and Σp. */
+export function halvesBoundHolds(absEarned: number, possible: number): boolean {
+  return (100 * absEarned + 1) * (100 * possible + 1) < EXACT / 2;
 }
 
 /**
- * The common case without rounding work: every earned and possible value a multiple of ½ (possible
- * > 0). For x = k/2 (k an integer, |k| < 2⁵²) x·10⁶ = 5·10⁵·k is exact, so its snap is itself, a
- * multiple of 10⁴, and the quotient by 10⁴ is 50·k = x·100 — also exact. So the hundredths are
- * x·100 and snapMillionths would produce the same integers. False when any value is not a half.
+ * How the drop functions learn whether halvesExact holds: CHECK_HALVES (they test it themselves)
+ * or HALVES_EXACT (the caller has: fast grading tests it while gathering the cells, one pass fewer).
  */
-function snapHalves(earned: Float64Array, possible: Float64Array, n: number, s: DropScratch): boolean {
-  let sumE = 0;
-  let sumP = 0;
-  for (let i = 0; i < n; i++) {
-    const e2 = earned[i]! * 2;
-    const p2 = possible[i]! * 2;
-    if (e2 !== Math.floor(e2) || p2 !== Math.floor(p2) || !(p2 > 0) || e2 > EXACT / SNAP || p2 > EXACT / SNAP) return false;
-    const e = e2 * 50;
-    const p = p2 * 50;
-    s.e[i] = e;
-    s.p[i] = p;
-    sumE += e;
-    sumP += p;
-  }
-  return (sumE + 1) * (sumP + 1) < EXACT / 2;
-}
+export type HalvesCheck = typeof CHECK_HALVES | typeof HALVES_EXACT;
+export const CHECK_HALVES = 0;
+export const HALVES_EXACT = 1;
 
+/**
+ * Snap to millionths as dropLowest.ts does (into s.e, s.p), then to hundredths when all allow it.
+ * False when the integers are too large for exact double products (the caller then uses the plain
+ * functions).
+ */
 function snapMillionths(earned: Float64Array, possible: Float64Array, n: number, s: DropScratch): boolean {
   let centi = true;
   let sumE = 0;
@@ -96,12 +113,28 @@ function snapMillionths(earned: Float64Array, possible: Float64Array, n: number,
  * Equal items: fills s.dropped; false when the plain function must decide. Percents compare by
  * cross-multiplication, so the "key" of the selection is replaced by a pairwise test.
  */
-export function dropLowestPercentsFast(earned: Float64Array, possible: Float64Array, n: number, requested: number, s: DropScratch): boolean {
+export function dropLowestPercentsFast(
+  earned: Float64Array,
+  possible: Float64Array,
+  n: number,
+  requested: number,
+  s: DropScratch,
+  halves: HalvesCheck = CHECK_HALVES,
+): boolean {
   const count = dropCount(n, requested);
   s.dropped.fill(0, 0, n);
   if (count === 0) return true;
-  if (!snapAll(earned, possible, n, s)) return false;
-  const { e, p, dropped } = s;
+  if (halves === HALVES_EXACT || halvesExact(earned, possible, n)) {
+    dropLowestRatios(earned, possible, n, count, s.dropped);
+    return true;
+  }
+  if (!snapMillionths(earned, possible, n, s)) return false;
+  dropLowestRatios(s.e, s.p, n, count, s.dropped);
+  return true;
+}
+
+/** Marks the `count` lowest e/p in `dropped`, earliest first among equals (exact values, see above). */
+function dropLowestRatios(e: Float64Array, p: Float64Array, n: number, count: number, dropped: Uint8Array): void {
   for (let d = 0; d < count; d++) {
     let best = -1;
     for (let i = 0; i < n; i++) {
@@ -111,23 +144,39 @@ export function dropLowestPercentsFast(earned: Float64Array, possible: Float64Ar
     }
     dropped[best] = 1;
   }
-  return true;
 }
 
 /**
  * Total points (Dinkelbach): fills s.dropped; false when the plain function must decide.
  *
  * Each round keeps the `count` smallest keys e·den − num·p, earliest first among equal keys (the
- * plain topK's order), in a short sorted list as the keys stream past — one pass, no sort. The
- * snapped values are integers whose sums stay below 2⁵³ (snapAll), so every sum is exact in any
- * order: the kept sums are the totals minus the dropped items', with no second pass.
+ * plain topK's order) — one pass, no sort: for one or two drops (nearly every syllabus) in two
+ * registers, else in a short sorted list as the keys stream past. The values compared are exact
+ * (halvesExact, snapMillionths), and so is every sum of them in any order: the kept sums are the
+ * totals minus the dropped items'.
  */
-export function dropForTotalPointsFast(earned: Float64Array, possible: Float64Array, n: number, requested: number, s: DropScratch): boolean {
+export function dropForTotalPointsFast(
+  earned: Float64Array,
+  possible: Float64Array,
+  n: number,
+  requested: number,
+  s: DropScratch,
+  halves: HalvesCheck = CHECK_HALVES,
+): boolean {
   const count = dropCount(n, requested);
   s.dropped.fill(0, 0, n);
   if (count === 0) return true;
-  if (!snapAll(earned, possible, n, s)) return false;
-  const { e, p, key, dropped, chosen } = s;
+  if (halves === HALVES_EXACT || halvesExact(earned, possible, n)) {
+    dinkelbach(earned, possible, n, count, s);
+    return true;
+  }
+  if (!snapMillionths(earned, possible, n, s)) return false;
+  dinkelbach(s.e, s.p, n, count, s);
+  return true;
+}
+
+function dinkelbach(e: Float64Array, p: Float64Array, n: number, count: number, s: DropScratch): void {
+  const { dropped, chosen } = s;
   let totalE = 0;
   let totalP = 0;
   for (let i = 0; i < n; i++) {
@@ -137,20 +186,8 @@ export function dropForTotalPointsFast(earned: Float64Array, possible: Float64Ar
   let num = totalE;
   let den = totalP;
   for (;;) {
-    let size = 0;
-    for (let i = 0; i < n; i++) {
-      const k = e[i]! * den - num * p[i]!;
-      key[i] = k;
-      if (size === count && !(k < key[chosen[size - 1]!]!)) continue;
-      // Insert i after every chosen key ≤ k (earlier indices first among equals).
-      let at = size < count ? size : size - 1;
-      while (at > 0 && key[chosen[at - 1]!]! > k) {
-        chosen[at] = chosen[at - 1]!;
-        at--;
-      }
-      chosen[at] = i;
-      if (size < count) size++;
-    }
+    if (count <= 2) smallestTwo(e, p, n, num, den, chosen);
+    else smallestKeys(e, p, n, count, num, den, s);
     let nextNum = totalE;
     let nextDen = totalP;
     for (let d = 0; d < count; d++) {
@@ -159,9 +196,54 @@ export function dropForTotalPointsFast(earned: Float64Array, possible: Float64Ar
     }
     if (nextNum * den <= num * nextDen) {
       for (let d = 0; d < count; d++) dropped[chosen[d]!] = 1;
-      return true;
+      return;
     }
     num = nextNum;
     den = nextDen;
+  }
+}
+
+/**
+ * chosen[0], chosen[1] := the indices of the smallest and second-smallest key e·den − num·p, the
+ * earlier index first among equal keys (n ≥ 2; chosen[1] is unused when one item is dropped).
+ */
+function smallestTwo(e: Float64Array, p: Float64Array, n: number, num: number, den: number, chosen: Int32Array): void {
+  let k1 = Infinity;
+  let k2 = Infinity;
+  let i1 = 0;
+  let i2 = 1;
+  for (let i = 0; i < n; i++) {
+    const k = e[i]! * den - num * p[i]!;
+    if (!(k < k2)) continue;
+    if (k < k1) {
+      k2 = k1;
+      i2 = i1;
+      k1 = k;
+      i1 = i;
+    } else {
+      k2 = k;
+      i2 = i;
+    }
+  }
+  chosen[0] = i1;
+  chosen[1] = i2;
+}
+
+/** chosen[0 … count−1] := the `count` smallest keys, ascending, the earlier index first among equals. */
+function smallestKeys(e: Float64Array, p: Float64Array, n: number, count: number, num: number, den: number, s: DropScratch): void {
+  const { key, chosen } = s;
+  let size = 0;
+  for (let i = 0; i < n; i++) {
+    const k = e[i]! * den - num * p[i]!;
+    key[i] = k;
+    if (size === count && !(k < key[chosen[size - 1]!]!)) continue;
+    // Insert i after every chosen key ≤ k (earlier indices first among equals).
+    let at = size < count ? size : size - 1;
+    while (at > 0 && key[chosen[at - 1]!]! > k) {
+      chosen[at] = chosen[at - 1]!;
+      at--;
+    }
+    chosen[at] = i;
+    if (size < count) size++;
   }
 }

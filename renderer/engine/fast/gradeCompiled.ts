@@ -33,7 +33,16 @@ import {
   type CompiledCourse,
   type CompiledPlan,
 } from './compileCourse';
-import { dropForTotalPointsFast, dropLowestPercentsFast, dropScratch, type DropScratch } from './dropLowestFast';
+import {
+  CHECK_HALVES,
+  HALVES_EXACT,
+  dropForTotalPointsFast,
+  dropLowestPercentsFast,
+  dropScratch,
+  halvesBoundHolds,
+  isHalfOrWhole,
+  type DropScratch,
+} from './dropLowestFast';
 import { roundHalfUpFast } from './roundHalfUpFast';
 
 export interface FastGrades {
@@ -109,19 +118,32 @@ export function categoryPercent(cat: CompiledCategory, earned: Float64Array, sta
     const ce = scratch.earned;
     const cp = scratch.possible;
     let n = 0;
+    // Gathered with dropLowestFast's halves test on the way (HalvesCheck), saving it a pass.
+    let halves = true;
+    let absE = 0;
+    let allP = 0;
     for (let j = 0; j < m; j++) {
       const cell = base + reg[j]!;
       if (counts[state[cell]!] === 1) {
-        ce[n] = earned[cell]!;
-        cp[n] = pos[j]!;
+        const e = earned[cell]!;
+        const p = pos[j]!;
+        ce[n] = e;
+        cp[n] = p;
         n++;
+        if (!isHalfOrWhole(e) || !isHalfOrWhole(p) || !(p > 0)) halves = false;
+        absE += Math.abs(e);
+        allP += p;
       }
     }
     if (n === 0) return Number.NaN;
     kept = n;
     const drops = dropCount(n, cat.dropLowest);
     const ds = scratch.drop;
-    if (drops > 0 && (cat.totalPoints ? dropForTotalPointsFast(ce, cp, n, cat.dropLowest, ds) : dropLowestPercentsFast(ce, cp, n, cat.dropLowest, ds))) {
+    const check = halves && halvesBoundHolds(absE, allP) ? HALVES_EXACT : CHECK_HALVES;
+    if (
+      drops > 0 &&
+      (cat.totalPoints ? dropForTotalPointsFast(ce, cp, n, cat.dropLowest, ds, check) : dropLowestPercentsFast(ce, cp, n, cat.dropLowest, ds, check))
+    ) {
       kept = n - drops;
       const dropped = ds.dropped;
       if (cat.totalPoints) {

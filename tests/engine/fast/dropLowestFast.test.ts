@@ -14,9 +14,14 @@ const itemArb = fc.oneof(
   fc.constant({ earned: 5, possible: 10 }),
 );
 
-function check(fast: typeof dropForTotalPointsFast, plain: typeof dropForTotalPoints) {
+// Few distinct values, so that equal percents and equal Dinkelbach keys (ties) are common.
+const tiedItemArb = fc
+  .tuple(fc.constantFrom(0, 2.5, 5, 7.5, 10, 20), fc.constantFrom(5, 10, 20))
+  .map(([e, p]) => ({ earned: e, possible: p }));
+
+function check(fast: typeof dropForTotalPointsFast, plain: typeof dropForTotalPoints, items = itemArb) {
   fc.assert(
-    fc.property(fc.array(itemArb, { minLength: 1, maxLength: 12 }), fc.oneof(fc.integer({ min: 0, max: 13 }), fc.constant(1.5)), (items, requested) => {
+    fc.property(fc.array(items, { minLength: 1, maxLength: 12 }), fc.oneof(fc.integer({ min: 0, max: 13 }), fc.constant(1.5)), (items, requested) => {
       const n = items.length;
       const e = Float64Array.from(items, (i) => i.earned);
       const p = Float64Array.from(items, (i) => i.possible);
@@ -33,6 +38,8 @@ function check(fast: typeof dropForTotalPointsFast, plain: typeof dropForTotalPo
 describe('fast drop lowest equals the plain choice', () => {
   it('total points (Dinkelbach)', () => check(dropForTotalPointsFast, dropForTotalPoints));
   it('equal items', () => check(dropLowestPercentsFast, dropLowestPercents));
+  it('total points, with many ties', () => check(dropForTotalPointsFast, dropForTotalPoints, tiedItemArb));
+  it('equal items, with many ties', () => check(dropLowestPercentsFast, dropLowestPercents, tiedItemArb));
 
   it('decides half-point marks itself, and declines sums too large for exact products', () => {
     const s = dropScratch(3);
