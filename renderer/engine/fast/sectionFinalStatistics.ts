@@ -4,7 +4,7 @@
  * with the plain statistics functions but sorting each group ONCE:
  *
  *   values (roster order, a Float64Array per group, sized by a counting pass) → sorted =
- *   values.slice().sort()   (native numeric sort);
+ *   sortFinals(values, decimals)   (a counting sort on the rounding grid, else the native sort);
  *   order-free statistics (quantiles, median, modes as run lengths, histogram, ECDF) read `sorted`;
  *   order-dependent ones read `values` in roster order, exactly as describe() does, so every double
  *   is the plain one: the compensated sum is simple-statistics' own `sum` called once, and the
@@ -33,6 +33,7 @@ import { tukeyFences, type Outlier } from '../stats/tukeyFences';
 import { populationVariance, sampleVariance } from '../stats/variance';
 import type { CompiledCourse } from './compileCourse';
 import type { FastGrades } from './gradeCompiled';
+import { sortFinals } from './sortFinals';
 
 export interface GroupStatistics {
   /** Section name, or null for the whole course. */
@@ -198,8 +199,9 @@ function group(
   labels: (index: number) => string,
   noMark: number,
   options: Required<FinalStatisticsOptions>,
+  decimals: number,
 ): GroupStatistics {
-  const sorted = values.slice().sort();
+  const sorted = sortFinals(values, decimals);
   return {
     section,
     summary: describeWithSorted(values, sorted, labels, options.quantileType),
@@ -248,7 +250,7 @@ export function sectionFinalStatistics(course: CompiledCourse, grades: FastGrade
     .sort((a, b) => a.name.localeCompare(b.name, undefined, { numeric: true }));
   const totalNoMark = noMark.reduce((s, v) => s + v, 0);
   return {
-    course: group(null, allValues, nameOf(allMembers), totalNoMark, opts),
-    sections: order.map(({ name, k }) => group(name, values[k]!, nameOf(members[k]!), noMark[k]!, opts)),
+    course: group(null, allValues, nameOf(allMembers), totalNoMark, opts, course.compiled.decimals),
+    sections: order.map(({ name, k }) => group(name, values[k]!, nameOf(members[k]!), noMark[k]!, opts, course.compiled.decimals)),
   };
 }
