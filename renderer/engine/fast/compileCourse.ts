@@ -59,6 +59,12 @@ export interface CompiledCategory {
    * as a table, so the loop does one lookup instead of three tests.
    */
   readonly counts: Uint8Array;
+  /**
+   * Every regular item's points possible is finite and > 0, so a cell that does not count can be
+   * added as 0 (its compiled earned points are 0, its possible and percent finite, times 0 is 0) —
+   * the grading loops then multiply by counts[state] instead of branching on it.
+   */
+  readonly possibleAllPositive: boolean;
   /** The category percent when the category has no assessments: 0 in a projected final, else none. */
   readonly emptyPercent: number;
 }
@@ -111,6 +117,7 @@ export function compilePlan(assessments: readonly Assessment[], plan: GradingPla
       regularPossible: Float64Array.from(regular, (it) => it.possible),
       extra: Int32Array.from(items.filter((it) => it.extraCredit), (it) => it.index),
       counts,
+      possibleAllPositive: regular.every((it) => Number.isFinite(it.possible) && it.possible > 0),
       emptyPercent: projected ? 0 : Number.NaN,
     };
   });

@@ -76,8 +76,9 @@ export function scratchFor(compiled: CompiledPlan): Scratch {
  * Which cells enter is the compiled `counts` table (one lookup per cell). Extra credit adds its
  * earned points whatever the cell's state: compiled earned points are 0 for every state but
  * earned, and adding +0 leaves a sum of non-negative numbers unchanged, so the sum is the plain one.
- * Without drop-lowest the sums run straight over the row; with it the counted cells are gathered
- * first (the drop choice needs them side by side).
+ * Without drop-lowest the sums run straight over the row (multiplying by the table's 0 or 1 rather
+ * than branching, when every possible is positive); with it the counted cells are gathered first
+ * (the drop choice needs them side by side).
  */
 export function categoryPercent(cat: CompiledCategory, earned: Float64Array, state: Uint8Array, base: number, scratch: Scratch): number {
   if (cat.items.length === 0) return cat.emptyPercent;
@@ -92,7 +93,29 @@ export function categoryPercent(cat: CompiledCategory, earned: Float64Array, sta
   let sumP = 0;
   let sumPct = 0;
   let kept = 0;
-  if (!(cat.dropLowest > 0)) {
+  if (!(cat.dropLowest > 0) && cat.possibleAllPositive) {
+    // Branch-free (CompiledCategory.possibleAllPositive): c is 1 or 0, and x·1 = x, x·0 = 0,
+    // s + 0 = s exactly for the non-negative sums here, so the sums are the branching loop's.
+    if (cat.totalPoints) {
+      for (let j = 0; j < m; j++) {
+        const cell = base + reg[j]!;
+        const c = counts[state[cell]!]!;
+        sumE += earned[cell]! * c;
+        sumP += pos[j]! * c;
+        kept += c;
+      }
+    } else {
+      for (let j = 0; j < m; j++) {
+        const cell = base + reg[j]!;
+        const c = counts[state[cell]!]!;
+        const p = pos[j]!;
+        sumP += p * c;
+        sumPct += ((100 * earned[cell]!) / p) * c;
+        kept += c;
+      }
+    }
+    if (kept === 0) return Number.NaN;
+  } else if (!(cat.dropLowest > 0)) {
     if (cat.totalPoints) {
       for (let j = 0; j < m; j++) {
         const cell = base + reg[j]!;
