@@ -7,6 +7,11 @@
  * caller imports the whole book (tests/services/spreadsheet/textImport.test.ts compares the two
  * on random tables).
  *
+ * The head rows come from `readTextRows` (papaparse's step mode). When the file holds no quote
+ * character, the reading stops there and the later rows are read from the text's lines
+ * (textLines.ts): papaparse's rows for such a text, without its objects per row or a string per
+ * score cell. Later rows are checked and converted, never kept (the line reader refills one row).
+ *
  * Why the first rows decide the layout exactly:
  * - Detection (detectLayout.ts) reads at most rows 0–59 to find the header (row ≤ 29), three rows
  *   below it for points possible and 200 rows below those for each column's content: all inside
@@ -25,6 +30,7 @@ import { planGradebook, type BuildResult } from './buildGradebook';
 import { detectLayout, MAX_COLUMNS, ROWS_READ_FROM_TOP } from './detectLayout';
 import { finishSheet, isBlank, readTextRows, type Cell, type RawBook, type ReadOverride, type ReadResult, type TextTable } from './readBook';
 import { allBlank, StudentRows } from './studentRows';
+import { QuoteFreeLines, quoteFreeBytes } from './textLines';
 
 /** Rows read before the layout is detected: all detectLayout reads cell by cell from the top of a sheet. */
 export const HEAD_ROWS = ROWS_READ_FROM_TOP;
@@ -45,7 +51,7 @@ export function importTextRows(bytes: Uint8Array, fileName: string, override: Re
   if (givenStart === null) return null;
   const head: Cell[][] = [];
   let reading: Reading | null = null;
-  const read = readTextRows(bytes, fileName, override, (row, r, table) => {
+  const onRow = (row: Cell[], r: number, table: TextTable): boolean => {
     trimRow(row);
     if (reading === null) {
       head.push(row);
@@ -57,10 +63,25 @@ export function importTextRows(bytes: Uint8Array, fileName: string, override: Re
       return true;
     }
     return reading.later(r, row);
+  };
+  // Without a quote in the file, the rows after the head are read from the text's lines
+  // (textLines.ts: papaparse's own rows for such a text, without a string per cell).
+  const lineWise = quoteFreeBytes(bytes);
+  let linesFrom: number | null = null;
+  const read = readTextRows(bytes, fileName, override, (row, r, table) => {
+    if (!onRow(row, r, table)) return false;
+    if (!lineWise || reading === null) return true;
+    linesFrom = r + 1;
+    return false;
   });
   if (read === null) return null;
   if (!read.ok) return { kind: 'read', read };
-  if (read.stopped) return null;
+  const from = linesFrom as number | null; // assigned in the row callback
+  if (from !== null) {
+    const table = read.table;
+    const lines = QuoteFreeLines.open(bytes, table);
+    if (lines === null || !lines.rowsFrom(from, (row, r) => onRow(row, r, table))) return null;
+  } else if (read.stopped) return null;
   const done = reading as Reading | null; // assigned in the row callback
   if (done === null) return { kind: 'read', read: { ok: true, book: headBook(read.table, head) } };
   return done.finish();
@@ -153,7 +174,7 @@ class Reading {
     this.scores.push(got.scores);
   }
 
-  /** A row after the head; false when it could change the detected layout (import the whole book). */
+  /** A row after the head, not kept; false when it could change the detected layout (import the whole book). */
   later(r: number, row: Cell[]): boolean {
     if (!this.settled(row)) return false;
     if (r >= this.firstRow) this.take(r, row);

@@ -50,7 +50,31 @@ export function parseScore(
   possible: number,
   tokens: ScoreTokens,
 ): ParseScoreResult {
-  return readCell(cell, possible, tokens, null, true);
+  return readCell(cell, possible, tokens, tableFor(tokens), true);
+}
+
+/**
+ * The token table of the lists `parseScore` was last called with (the layout detection calls it
+ * for thousands of cells with the same lists): rebuilt whenever a list or a word in it is not the
+ * one it was built from, so a change to the lists is always seen.
+ */
+let lastTable: { readonly tokens: ScoreTokens; readonly words: ScoreTokens; readonly table: TokenTable } | null = null;
+
+function tableFor(tokens: ScoreTokens): TokenTable {
+  const last = lastTable;
+  if (last !== null && last.tokens === tokens && sameList(tokens.excused, last.words.excused) && sameList(tokens.missing, last.words.missing) && sameList(tokens.pending, last.words.pending)) {
+    return last.table;
+  }
+  const words: ScoreTokens = { excused: [...tokens.excused], missing: [...tokens.missing], pending: [...tokens.pending] };
+  const table = tokenTable(words);
+  lastTable = { tokens, words, table };
+  return table;
+}
+
+function sameList(list: readonly string[], copy: readonly string[]): boolean {
+  if (list.length !== copy.length) return false;
+  for (let i = 0; i < list.length; i++) if (list[i] !== copy[i]) return false;
+  return true;
 }
 
 /** `parseScore` with the token lists fixed: what an import calls once per cell. */

@@ -88,4 +88,23 @@ describe('parseScore shortcuts equal the general grammar', () => {
       expect(rb).toEqual(parseScoreByGrammar(b, 10, DEFAULT_TOKENS));
     }
   });
+
+  it('parseScore sees a change to the token lists between calls (its token table is rebuilt)', () => {
+    const word = fc.constantFrom('EX', 'ex', 'M', '', ' 0 ', '7', 'pending', 'TBD', '-', 'abc');
+    const lists = fc.record({ excused: fc.array(word, { maxLength: 3 }), missing: fc.array(word, { maxLength: 3 }), pending: fc.array(word, { maxLength: 3 }) });
+    fc.assert(
+      fc.property(lists, fc.array(fc.tuple(fc.constantFrom('excused', 'missing', 'pending'), fc.nat(3), word), { maxLength: 4 }), fc.array(cellText, { minLength: 1, maxLength: 8 }), (start, edits, cells) => {
+        // One mutable token object, edited in place between reads (as a careless caller might).
+        const tokens = { excused: [...start.excused], missing: [...start.missing], pending: [...start.pending] };
+        for (const [list, at, w] of [['excused', 0, 'EX'] as const, ...edits]) {
+          for (const cell of cells) expect(parseScore(cell, 10, tokens)).toEqual(parseScoreByGrammar(cell, 10, tokens));
+          const target = tokens[list];
+          if (at < target.length) target[at] = w;
+          else target.push(w);
+        }
+        for (const cell of cells) expect(parseScore(cell, 10, tokens)).toEqual(parseScoreByGrammar(cell, 10, tokens));
+      }),
+      { numRuns: 500 },
+    );
+  });
 });

@@ -146,6 +146,34 @@ describe('row-at-a-time text import equals the whole-book import', () => {
     );
   });
 
+  // Without a quote in the file, the rows below the head are read from the text's lines
+  // (textLines.ts) instead of papaparse's steps: the same comparisons on such tables.
+  const quoteFree = (t: Table): Table => ({
+    ...t,
+    quoteAll: false,
+    breakQuote: null,
+    rows: t.rows.map((row) => row.map((c) => c.split('"').join('').split(t.delimiter).join(''))),
+  });
+
+  it('quote-free tables (read line-wise below the head): the same Result, detected and with a layout', () => {
+    fc.assert(
+      fc.property(table.map(quoteFree), fc.constantFrom('t.csv', 't.tsv'), (t, name) => {
+        const bytes = bytesOf(t);
+        expect(bytes.includes(0x22)).toBe(false);
+        const whole = detectAndImportWhole(bytes, name);
+        expect(detectAndImportBytes(bytes, name)).toStrictEqual(whole);
+        if (whole.ok) expect(importWorkbookBytes(bytes, name, whole.value.layout)).toStrictEqual(importWorkbookWhole(bytes, name, whole.value.layout));
+      }),
+      { numRuns: 150 },
+    );
+  });
+
+  it('the quote-free tables mostly read rows past the head line-wise', () => {
+    const sample = fc.sample(table.map(quoteFree), { numRuns: 200, seed: 231 });
+    const lineWise = sample.filter((t) => t.rows.length > HEAD_ROWS && importTextRows(bytesOf(t), 't.csv', {}, null)?.kind === 'built').length;
+    expect(lineWise).toBeGreaterThan(sample.length / 8); // 85 of 200 with this seed
+  });
+
   it('a late cell in a column the first rows leave empty sends the import to the whole book, with the same result', () => {
     const rows = [['Student ID', 'Name', 'Quiz 1 (10)', ''], ...Array.from({ length: HEAD_ROWS + 10 }, (_, i) => [`S${i}`, 'N', '5'])];
     rows.push(['S-late', 'N', '5', 'note']);
