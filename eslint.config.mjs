@@ -4,7 +4,7 @@ import tseslint from 'typescript-eslint';
 const nodeBuiltins = ['node:*', 'fs', 'fs/*', 'path', 'os', 'child_process', 'crypto', 'url', 'util', 'stream', 'worker_threads', 'http', 'https', 'net'];
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'release/**', 'node_modules/**', 'coverage/**', 'tests/artifacts/**', '**/*.d.ts'] },
+  { ignores: ['dist/**', 'release/**', 'node_modules/**', 'coverage/**', 'tests/artifacts/**', '**/*.d.ts', 'bench/.prof/**'] },
   ...tseslint.configs.recommended,
   {
     rules: {
