@@ -4,7 +4,6 @@
  * tests agree.
  */
 import type { Score } from '../../engine/model';
-import type { ItemStatus } from '../../engine/results';
 
 export type CellState = 'earned' | 'above' | 'missing' | 'excused' | 'pending';
 
@@ -24,8 +23,8 @@ export function formatPoints(points: number): string {
   return pointsFormat.format(points);
 }
 
-export function cellView(score: Score | undefined, possible: number, status: ItemStatus | undefined): CellView {
-  const dropped = status === 'dropped';
+/** `dropped`: the student's drop-lowest rule left this item out (droppedItems.ts). */
+export function cellView(score: Score | undefined, possible: number, dropped: boolean): CellView {
   const droppedWords = dropped ? ', dropped by drop lowest' : '';
   if (score === undefined || score.kind === 'missing') {
     return { state: 'missing', text: '—', dropped, label: `missing${droppedWords}` };
