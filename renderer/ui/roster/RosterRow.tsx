@@ -124,9 +124,7 @@ export const RosterRow = memo(function RosterRow(p: RosterRowProps) {
             role="gridcell"
             aria-colindex={c + 1}
             aria-label={view.label}
-            className={`wb-cell wb-num wb-cell-${view.state}${view.dropped ? ' wb-cell-dropped' : ''}`}
-            data-state={view.state}
-            data-dropped={view.dropped ? 'true' : undefined}
+            className={`wb-cell wb-num wb-score wb-cell-${view.state}${view.dropped ? ' wb-cell-dropped' : ''}`}
             data-cell={`${index}:${c}`}
             tabIndex={tab(c)}
           >
