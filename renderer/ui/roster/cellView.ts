@@ -19,8 +19,19 @@ export interface CellView {
 
 const pointsFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 2, useGrouping: false });
 
+/** Formatted points, by value: a screen of scores holds few distinct values, formatting is not cheap. */
+const formatted = new Map<number, string>();
+const FORMATTED_KEEP = 4096;
+
 export function formatPoints(points: number): string {
-  return pointsFormat.format(points);
+  // A Map key does not tell -0 from 0, which the format does ("-0").
+  if (Object.is(points, -0)) return pointsFormat.format(points);
+  let text = formatted.get(points);
+  if (text === undefined) {
+    text = pointsFormat.format(points);
+    if (formatted.size < FORMATTED_KEEP) formatted.set(points, text);
+  }
+  return text;
 }
 
 /** `dropped`: the student's drop-lowest rule left this item out (droppedItems.ts). */
