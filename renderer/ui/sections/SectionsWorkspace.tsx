@@ -27,6 +27,7 @@ import { useCourseStore } from '../../state/courseStore';
 import { Button } from '../common/Button';
 import { ReportPreview } from '../report/ReportPreview';
 import { letterDistribution } from './chartData';
+import { ChartsBuiltLate } from './ChartFigure';
 import { ComparisonPanel } from './ComparisonPanel';
 import { drawSoon, inViewport } from './drawSoon';
 import { ItemAnalysisTable } from './ItemAnalysisTable';
@@ -80,6 +81,9 @@ export function SectionsWorkspace() {
   const comparison = useAfterPaint(stats === null ? null : results, `comparison of ${measureKey(measure)}`, () =>
     comparisonSteps(stats!.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, values: s.values }))),
   );
+  // Memoised: a new array would redraw the histogram on every render of this screen.
+  const scale = plan?.scale;
+  const cutoffs = useMemo(() => (measure.kind === 'final' && scale !== undefined ? sortedCutoffs(scale) : null), [measure.kind, scale]);
   const items = useAfterPaint(book === undefined || plan === undefined ? null : results, 'item analysis', () => itemAnalysisSteps(book!, plan!));
 
   if (project === null || book === undefined || plan === undefined || stats === null || results === null) {
@@ -87,7 +91,7 @@ export function SectionsWorkspace() {
   }
 
   const categoryName = (id: string | null) => (id === null ? 'not graded' : (plan.categories.find((c) => c.id === id)?.name ?? id));
-  const cutoffs = measure.kind === 'final' ? sortedCutoffs(plan.scale) : null;
+
 
   return (
     <section className="wb-sections" aria-labelledby={ids.title}>
@@ -181,20 +185,24 @@ function Letters({ book, students, scale, stats }: { book: Gradebook; students: 
  */
 function Distributions({ children }: { children: () => ReactNode }) {
   const panel = useRef<HTMLElement>(null);
-  const [built, setBuilt] = useState(false);
+  const [built, setBuilt] = useState<'no' | 'inFirstPaint' | 'late'>('no');
   useLayoutEffect(() => {
-    if (built || panel.current === null) return;
+    if (built !== 'no' || panel.current === null) return;
     if (inViewport(panel.current)) {
-      setBuilt(true);
+      setBuilt('inFirstPaint');
       return;
     }
-    return drawSoon(() => setBuilt(true));
+    return drawSoon(() => setBuilt('late'));
   }, [built]);
   return (
-    <section ref={panel} className="wb-panel" aria-label="Distribution charts" aria-busy={!built}>
+    <section ref={panel} className="wb-panel" aria-label="Distribution charts" aria-busy={built === 'no'}>
       <h2>Distributions</h2>
-      <Computing what="the distribution charts" busy={!built} testId="charts-status" />
-      {built && <div className="wb-charts">{children()}</div>}
+      <Computing what="the distribution charts" busy={built === 'no'} testId="charts-status" />
+      {built !== 'no' && (
+        <ChartsBuiltLate.Provider value={built === 'late'}>
+          <div className="wb-charts">{children()}</div>
+        </ChartsBuiltLate.Provider>
+      )}
     </section>
   );
 }
