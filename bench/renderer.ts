@@ -12,12 +12,17 @@
  *   2. Ctrl+5 to Sections. Start = that keydown's timestamp; end = the first frame painted after
  *      which the course-mean cell of the statistics table holds the engine's mean for the new
  *      weights (computed here in Node with gradeCourse + sectionStatistics). The statistics
- *      table and the four charts are rendered in that commit; the comparison of sections and the
- *      item analysis are computed after that paint, in slices, and shown when done.
+ *      table and every chart that is on screen are drawn in that frame — checked there: a chart
+ *      on screen without its SVG for the new numbers is a wrong result. At 1280 × 820 the four
+ *      charts lie below the table (`sectionsChartsOnScreenAtPaint`), so the app draws them just
+ *      after that paint, one per slice; the comparison of sections and the item analysis are
+ *      computed after that paint, in slices, and shown when done.
  *   weightEditToPaintMs = (1) + (2): the app's own time from the edit to the statistics and
  *   charts on screen, leaving out the harness's round trip between the two key presses.
  *   sectionsCompleteAfterEditMs: from the same Ctrl+5 keydown to the first frame painted with the
- *   comparison and the item analysis on screen too (what the deferred work costs in all).
+ *   four charts drawn and the comparison and the item analysis on screen too (what the deferred
+ *   work costs in all); the long tasks in that stretch after the paint are counted apart
+ *   (`sectionsCompleteLongTasksOver50ms`).
  *   In the same run, alternating with it: (2) alone without an edit (`sectionsOnlyMs`: what
  *   showing the statistics costs anyway), and the same sequence on the 212-student demo course
  *   (`baselineMs`, `ratio`).
@@ -63,6 +68,8 @@ interface Timing {
   readonly end: number;
   readonly applied: number | null;
   readonly frames: number;
+  /** Charts on screen in the end frame, and how many of them were not drawn for the new numbers. */
+  readonly charts: { readonly onScreen: number; readonly undrawn: number };
 }
 
 interface LongTask {
@@ -85,6 +92,15 @@ const PROBE = String.raw`(() => {
       for (const e of list.getEntries()) longTasks.push({ start: e.startTime, duration: e.duration });
     }).observe({ type: 'longtask', buffered: true });
   }
+  // Charts on screen in a frame, and of those how many are not (yet) drawn for the current inputs:
+  // the Sections panel of charts counts as one undrawn chart while its figures are not built.
+  const inView = (el) => { const r = el.getBoundingClientRect(); return r.bottom >= 0 && r.top <= innerHeight && r.right >= 0 && r.left <= innerWidth; };
+  const chartsOnScreen = () => {
+    const hosts = [...document.querySelectorAll('.wb-chart-host')].filter(inView);
+    const panel = document.querySelector('section[aria-label="Distribution charts"]');
+    const unbuilt = panel !== null && inView(panel) && panel.querySelector('.wb-charts') === null ? 1 : 0;
+    return { onScreen: hosts.length, undrawn: hosts.filter((h) => h.getAttribute('data-drawn') !== 'true').length + unbuilt };
+  };
   const matches = (c) => {
     const el = document.querySelector(c.selector);
     if (el === null) return false;
@@ -111,7 +127,7 @@ const PROBE = String.raw`(() => {
               if (matches(check)) {
                 const marks = performance.getEntriesByName('wb:edit-applied');
                 const applied = marks.length > marksBefore ? marks[marks.length - 1].startTime : null;
-                resolve({ start, end: t, applied, frames });
+                resolve({ start, end: t, applied, frames, charts: chartsOnScreen() });
                 return;
               }
               if (t > deadline) {
@@ -147,11 +163,12 @@ async function settle(page: Page): Promise<Timing> {
   return (await page.evaluate('window.__wbBench.pending')) as Timing;
 }
 
-/** The first painted frame with the comparison and the item analysis on screen (performance.now()). */
+/** The first painted frame with the comparison, the item analysis and all four charts drawn (performance.now()). */
 const SECTIONS_COMPLETE = String.raw`(async () => {
   for (;;) {
     const t = await window.__wbBench.afterPaint();
-    if (document.querySelector('[data-testid="comparison"]') !== null && document.querySelector('[data-testid="item-analysis"]') !== null) return t;
+    if (document.querySelector('[data-testid="comparison"]') !== null && document.querySelector('[data-testid="item-analysis"]') !== null &&
+      document.querySelectorAll('.wb-chart-host[data-drawn="true"]').length === 4) return t;
   }
 })()`;
 
@@ -204,17 +221,20 @@ async function showPlan(s: Subject): Promise<void> {
 }
 
 /** (2) alone: Plan → Sections without an edit. */
-async function sectionsOnly(s: Subject): Promise<number> {
+async function sectionsOnly(s: Subject): Promise<{ ms: number; charts: Timing['charts'] }> {
   await showPlan(s);
   const { page } = s.session;
   await arm(page, '5', s.expect.get(s.current)!.sectionsCheck);
   await page.keyboard.press('Control+5');
   const t = await settle(page);
-  return t.end - t.start;
+  return { ms: t.end - t.start, charts: t.charts };
 }
 
 /** (1) + (2): one weight edit in Plan, then Sections. */
-async function editToPaint(s: Subject): Promise<{ total: number; plan: number; sections: number; sectionsComplete: number; appliedToPaint: number | null; longTasks: LongTask[] }> {
+async function editToPaint(s: Subject): Promise<{
+  total: number; plan: number; sections: number; sectionsComplete: number; appliedToPaint: number | null; longTasks: LongTask[];
+  charts: Timing['charts']; longTasksToComplete: LongTask[];
+}> {
   await showPlan(s);
   const { page } = s.session;
   const next = s.weights[0] === s.current ? s.weights[1] : s.weights[0];
@@ -236,6 +256,9 @@ async function editToPaint(s: Subject): Promise<{ total: number; plan: number; s
     sectionsComplete: complete - q.start,
     appliedToPaint: p.applied === null ? null : p.end - p.applied,
     longTasks: await longTasksBetween(page, p.start, q.end),
+    charts: q.charts,
+    // After the paint: the charts below the screen, the comparison and the item analysis.
+    longTasksToComplete: await longTasksBetween(page, q.end, q.start + (complete - q.start)),
   };
 }
 
@@ -322,11 +345,18 @@ export async function rendererWorkload(opts: RendererOptions) {
     const runs: Awaited<ReturnType<typeof editToPaint>>[] = [];
     const baseline: number[] = [];
     const onlySections: number[] = [];
+    const charts: Timing['charts'][] = [];
     for (let i = 0; i < opts.editRuns; i++) {
-      runs.push(await editToPaint(large));
+      const run = await editToPaint(large);
+      runs.push(run);
       baseline.push((await editToPaint(small)).total);
-      onlySections.push(await sectionsOnly(large));
+      const only = await sectionsOnly(large);
+      onlySections.push(only.ms);
+      charts.push(run.charts, only.charts);
     }
+    // The end frame must show every chart that is on screen for the new numbers (charts below the
+    // screen are drawn after it, inside sectionsCompleteAfterEditMs).
+    if (charts.some((c) => c.undrawn > 0)) wrong.push(`renderer: a chart on screen was not drawn in the frame measured as painted (${JSON.stringify(charts)})`);
 
     log('renderer: measuring grid scroll');
     const scrolls: Awaited<ReturnType<typeof scrollGrid>>[] = [];
@@ -356,6 +386,9 @@ export async function rendererWorkload(opts: RendererOptions) {
         sectionsAfterEditPaintMs: round(median(runs.map((r) => r.sections))),
         sectionsWithoutEditPaintMs: round(median(onlySections)),
         sectionsCompleteAfterEditMs: round(median(runs.map((r) => r.sectionsComplete))),
+        sectionsChartsOnScreenAtPaint: Math.max(...charts.map((c) => c.onScreen)),
+        sectionsCompleteLongTasksOver50ms: median(runs.map((r) => r.longTasksToComplete.length)),
+        sectionsCompleteLongestTaskMs: round(Math.max(0, ...runs.flatMap((r) => r.longTasksToComplete.map((t) => t.duration)))),
         editAppliedToPlanPaintMs: applied.length > 0 ? round(median(applied)) : null,
         editLongTasksOver50ms: median(editLong.map((l) => l.length)),
         editLongestTaskMs: round(Math.max(0, ...editLong.flat().map((t) => t.duration))),
@@ -368,7 +401,7 @@ export async function rendererWorkload(opts: RendererOptions) {
         scrollWheelPx: WHEEL_PX,
         scrollRuns: scrolls.length,
         browser: `${/(?:HeadlessChrome|Chrome)\/[\d.]+/.exec(String(await bigSession.page.evaluate('navigator.userAgent')))?.[0] ?? 'Chromium'} (/usr/bin/chromium, headless, --disable-gpu)`,
-        definition: 'weightEditToPaintMs = Enter in Plan’s weight field → first frame painted with the new weight sum, plus Ctrl+5 → first frame painted with the engine’s new course mean in the Sections statistics (table + charts; the comparison and item analysis follow, sectionsCompleteAfterEditMs); medians. longTasksOver50ms = median count of long tasks during a mouse-wheel scroll of the Roster grid from first to last row. See bench/renderer.ts.',
+        definition: 'weightEditToPaintMs = Enter in Plan’s weight field → first frame painted with the new weight sum, plus Ctrl+5 → first frame painted with the engine’s new course mean in the Sections statistics (the table and every chart on screen in that frame; charts below the screen, the comparison and the item analysis follow, sectionsCompleteAfterEditMs); medians. longTasksOver50ms = median count of long tasks during a mouse-wheel scroll of the Roster grid from first to last row. See bench/renderer.ts.',
       },
     };
   } finally {

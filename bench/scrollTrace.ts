@@ -4,7 +4,7 @@
  * only scrolls the grid — mouse-wheel steps of 680 px, one painted frame per step, first row to
  * last — while recording a Chromium trace over CDP (`Tracing`), or a CPU profile (`Profiler`).
  *
- *   npx tsx bench/scrollTrace.ts [--students 1000] [--profile] [--out /tmp/scroll] [--renderer DIR]
+ *   npx tsx bench/scrollTrace.ts [--students 1000] [--profile | --heap] [--out /tmp/scroll] [--renderer DIR]
  *     [--edit] [--start FRACTION] [--steps N]
  *
  * --renderer serves another build of the renderer (e.g. `vite build … --outDir /tmp/before`), to
@@ -30,6 +30,8 @@ const WHEEL_PX = 680;
 const arg = (name: string): string | undefined => ((i) => (i >= 0 ? process.argv[i + 1] : undefined))(process.argv.indexOf(name));
 const students = Number(arg('--students') ?? '1000');
 const profile = process.argv.includes('--profile');
+/** Sample allocations (CDP HeapProfiler.startSampling) instead of tracing. */
+const heap = process.argv.includes('--heap');
 const out = arg('--out') ?? join(tmpdir(), `scroll-${students}`);
 const rendererDir = arg('--renderer');
 /** Before scrolling, edit the first category's weight in Plan and show Sections, as bench/renderer.ts does. */
@@ -147,6 +149,31 @@ function profileTable(p: CpuProfile, limit = 30): string {
   return table(self, limit);
 }
 
+interface HeapNode {
+  readonly callFrame: ProfileNode['callFrame'];
+  readonly selfSize: number;
+  readonly children: readonly HeapNode[];
+}
+interface SamplingHeapProfile {
+  readonly head: HeapNode;
+}
+
+function heapTable(p: SamplingHeapProfile, limit = 25): string {
+  const self = new Map<string, number>();
+  const walk = (n: HeapNode, parent: string) => {
+    const f = n.callFrame;
+    const name = f.functionName || '(anonymous)';
+    // Allocation by a built-in (an array literal, a Map) is charged to the script that called it.
+    const key = f.url === '' && parent !== '' ? `${parent} > ${name}` : `${name} ${f.url.split('/').pop() ?? ''}:${f.lineNumber + 1}:${f.columnNumber + 1}`;
+    self.set(key, (self.get(key) ?? 0) + n.selfSize);
+    for (const c of n.children) walk(c, f.url === '' ? parent : key);
+  };
+  walk(p.head, '');
+  const total = [...self.values()].reduce((a, b) => a + b, 0);
+  return [...self.entries()].sort((a, b) => b[1] - a[1]).slice(0, limit)
+    .map(([k, v]) => `  ${(v / 2 ** 20).toFixed(1).padStart(8)} MiB ${((100 * v) / total).toFixed(1).padStart(5)} %  ${k}`).join('\n');
+}
+
 async function main(): Promise<void> {
   const { book, plan } = syntheticCourse({ students, assessments: 60, sections: 40, seed: 10 });
   const title = `Bench course, ${students} students`;
@@ -182,13 +209,19 @@ async function main(): Promise<void> {
     await page.evaluate('window.__afterPaint().then(() => window.__afterPaint())');
 
     const cdp = await page.context().newCDPSession(page);
-    if (profile) {
+    let heapBefore = 0;
+    if (heap) {
+      await cdp.send('HeapProfiler.enable');
+      await cdp.send('HeapProfiler.collectGarbage');
+      heapBefore = ((await cdp.send('Runtime.getHeapUsage')) as { usedSize: number }).usedSize;
+      await cdp.send('HeapProfiler.startSampling', { samplingInterval: 16384, includeObjectsCollectedByMajorGC: true, includeObjectsCollectedByMinorGC: true });
+    } else if (profile) {
       await cdp.send('Profiler.enable');
       await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
       await cdp.send('Profiler.start');
     } else {
       await cdp.send('Tracing.start', {
-        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8', 'blink.user_timing', 'toplevel'].join(','),
+        categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8', 'disabled-by-default-v8.gc', 'blink.user_timing', 'toplevel'].join(','),
         transferMode: 'ReportEvents',
       });
     }
@@ -204,7 +237,16 @@ async function main(): Promise<void> {
     const long = ((await page.evaluate('window.__scroll.longTasks')) as { start: number; duration: number }[]).filter((t) => t.start >= from && t.start <= to);
     console.log(`${students} students: ${steps} wheel steps in ${(to - from).toFixed(0)} ms; ${long.length} long tasks > 50 ms (longest ${Math.max(0, ...long.map((t) => t.duration)).toFixed(0)} ms)`);
 
-    if (profile) {
+    if (heap) {
+      const { profile: h } = (await cdp.send('HeapProfiler.stopSampling')) as unknown as { profile: SamplingHeapProfile };
+      const heapAfter = ((await cdp.send('Runtime.getHeapUsage')) as { usedSize: number }).usedSize;
+      await cdp.send('HeapProfiler.collectGarbage');
+      const heapAfterGc = ((await cdp.send('Runtime.getHeapUsage')) as { usedSize: number }).usedSize;
+      await writeFile(`${out}.heapprofile`, JSON.stringify(h));
+      const mib = (b: number) => `${(b / 2 ** 20).toFixed(1)} MiB`;
+      console.log(`JS heap used: ${mib(heapBefore)} before (after a GC), ${mib(heapAfter)} at the end, ${mib(heapAfterGc)} after a GC (retained by the scroll: ${mib(heapAfterGc - heapBefore)})`);
+      console.log(`allocated during the scroll (sampled, self size by function), ${out}.heapprofile:\n${heapTable(h)}`);
+    } else if (profile) {
       const { profile: p } = (await cdp.send('Profiler.stop')) as unknown as { profile: CpuProfile };
       await writeFile(`${out}.cpuprofile`, JSON.stringify(p));
       console.log(`JavaScript self time (top functions), ${out}.cpuprofile:\n${profileTable(p)}`);
@@ -230,6 +272,20 @@ async function main(): Promise<void> {
       console.log(`main-thread self CPU time over the scroll, per wheel step:\n${table(new Map([...selfTimes(onMain, undefined, true)].map(([k, v]) => [k, v / steps])))}`);
       const inLong = (e: TraceEvent) => longTasks.some((t) => e.ts >= t.ts && e.ts < t.ts + t.dur!);
       console.log(`main-thread self time inside the long tasks:\n${table(selfTimes(onMain, inLong))}`);
+      // Each long task on its own: wall and CPU time, and what inside it took the most self time.
+      const t0 = tasks[0]?.ts ?? 0;
+      for (const t of longTasks.filter((x) => x.name === 'ThreadControllerImpl::RunTask')) {
+        const inside = onMain.filter((e) => e.ts >= t.ts && e.ts < t.ts + t.dur!);
+        const top = [...selfTimes(inside)].sort((a, b) => b[1] - a[1]).slice(0, 6).map(([k, v]) => `${k} ${(v / 1000).toFixed(1)}`).join(', ');
+        console.log(`long task at +${((t.ts - t0) / 1000).toFixed(0)} ms: wall ${(t.dur! / 1000).toFixed(1)} ms, CPU ${((t.tdur ?? 0) / 1000).toFixed(1)} ms: ${top}`);
+      }
+      const gcs = onMain.filter((e) => e.ph === 'X' && /MajorGC|MinorGC|V8\.GC_MC_|V8\.GCFinalizeMC|V8\.GCScavenger$|V8\.GC_MARK_COMPACTOR$|V8\.GC_SCAVENGER$|V8\.GCIncrementalMarking$/.test(e.name));
+      const byName = new Map<string, { n: number; ms: number; max: number }>();
+      for (const g of gcs) {
+        const v = byName.get(g.name) ?? { n: 0, ms: 0, max: 0 };
+        byName.set(g.name, { n: v.n + 1, ms: v.ms + g.dur! / 1000, max: Math.max(v.max, g.dur! / 1000) });
+      }
+      console.log(`GC events on the main thread: ${[...byName].map(([k, v]) => `${k} ×${v.n} ${v.ms.toFixed(0)} ms (longest ${v.max.toFixed(1)})`).join('; ') || 'none'}`);
     }
   } finally {
     await session.close();

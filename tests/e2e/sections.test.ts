@@ -23,10 +23,19 @@ const COURSE = '__course__';
 async function showSections(page: Page): Promise<void> {
   await page.getByRole('tab', { name: /Sections/ }).click();
   await page.getByRole('heading', { level: 1, name: 'Sections' }).waitFor();
-  await page.locator('figure[data-chart="boxplot"] svg').waitFor();
-  // The comparison and the item analysis follow the first paint (computed in slices).
+  // Charts below the statistics table, the comparison and the item analysis follow the first
+  // paint (drawn and computed in slices): wait until all four charts show the current numbers.
+  await page.waitForFunction(() => document.querySelectorAll('.wb-chart-host[data-drawn="true"]').length === 4);
   await page.getByTestId('comparison').waitFor();
   await page.getByTestId('item-analysis').waitFor();
+}
+
+/**
+ * A chart below the screen is redrawn just after a change, not in the same frame (drawSoon.ts):
+ * wait until the SVG shown is the one for the current inputs before reading it.
+ */
+async function chartDrawn(page: Page, chart: string): Promise<void> {
+  await page.locator(`figure[data-chart="${chart}"] .wb-chart-host[data-drawn="true"]`).waitFor({ state: 'attached' });
 }
 
 interface Cell { stat: string; section: string; value: string | null; text: string; defined: boolean }
@@ -134,6 +143,7 @@ describe('Sections workspace (browser)', () => {
       if (before?.q1.defined && g.summary.q1.defined && before.q1.value !== g.summary.q1.value) differs++;
     }
     expect(differs).toBeGreaterThan(0);
+    await chartDrawn(app.page, 'boxplot');
     await expect.poll(() => app.page.locator('figure[data-chart="boxplot"] g.wb-outlier circle').count()).toBe(after.sections.reduce((s, x) => s + x.summary.outliers.length, 0));
     await app.page.getByTestId('quantile-type').selectOption('7');
     await expect.poll(async () => outliersShown(app.page)).toEqual(outliersExpected(base));
@@ -195,6 +205,7 @@ describe('Sections workspace (browser)', () => {
       const h = histogram(values, rule);
       if (!h.defined) throw new Error(h.reason);
       await app.page.getByTestId('bin-rule').selectOption(option);
+      await chartDrawn(app.page, 'histogram');
       await expect.poll(() => fig.locator('g.wb-bin rect').count()).toBe(h.value.bins.length);
       const shown = (await fig.locator('g.wb-bin rect title').allTextContents()).map((t) => Number(/: (\d+) students$/.exec(t)?.[1]));
       expect(shown).toEqual(h.value.bins.map((b) => b.count));

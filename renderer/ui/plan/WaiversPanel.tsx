@@ -1,5 +1,5 @@
 /** Waivers: a category that does not count for one section, or for one student (with a note why). */
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import type { Gradebook, GradingPlan } from '../../engine/model';
 import * as edits from '../../state/planEdits';
 import { Button } from '../common/Button';
@@ -10,7 +10,8 @@ import type { PlanUpdate } from './planUpdate';
 export function WaiversPanel({ plan, gradebook, sections, update }: { plan: GradingPlan; gradebook: Gradebook; sections: readonly string[]; update: PlanUpdate }) {
   const categoryName = (id: string) => plan.categories.find((c) => c.id === id)?.name ?? id;
   const categoryOptions = plan.categories.map((c) => ({ value: c.id, label: c.name }));
-  const studentById = new Map(gradebook.students.map((s) => [s.id, s] as const));
+  // Built once per roster, not on every plan edit (10 000 entries on a large course).
+  const studentById = useMemo(() => new Map(gradebook.students.map((s) => [s.id, s] as const)), [gradebook.students]);
 
   const [wSection, setWSection] = useState('');
   const [wSectionCategory, setWSectionCategory] = useState('');

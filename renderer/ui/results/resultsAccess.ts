@@ -3,7 +3,7 @@
  * Roster, Plan and Results screens look students up the same way. Nothing here computes a mark.
  */
 import type { CourseResult } from '../../state/courseStore';
-import type { CategoryLine, ItemLine, ItemStatus, StudentResult } from '../../engine/results';
+import type { CategoryLine, ItemLine, StudentResult } from '../../engine/results';
 
 export function studentResultList(results: CourseResult | null): readonly StudentResult[] {
   return results === null ? [] : results.students;
@@ -13,14 +13,6 @@ export function studentResultList(results: CourseResult | null): readonly Studen
 export function studentResultMap(results: CourseResult | null): ReadonlyMap<string, StudentResult> {
   const map = new Map<string, StudentResult>();
   for (const r of studentResultList(results)) map.set(r.studentId, r);
-  return map;
-}
-
-/** Assessment id → the status of that item in the student's explanation. */
-export function itemStatusesFor(result: StudentResult | undefined): ReadonlyMap<string, ItemStatus> {
-  const map = new Map<string, ItemStatus>();
-  if (result === undefined) return map;
-  for (const line of result.lines) if (line.kind === 'item') map.set(line.assessmentId, line.status);
   return map;
 }
 

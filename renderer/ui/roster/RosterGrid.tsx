@@ -15,12 +15,13 @@
  *   and style recalculation grew over a long scroll: 3 → 10 ms a step over 10 000 rows.)
  * - the three fixed columns are one sticky block per row, not three sticky cells;
  * - the overscan rows are built after the frame (rowWindow), so the frame builds only the rows it
- *   shows.
+ *   shows, and only once the scroll stops: during a scroll every step would replace them unseen;
+ * - the row cells need only which items were dropped (droppedItems.ts), not the student's whole
+ *   explanation, which reading the result's `lines` builds and keeps.
  */
 import { useCallback, useDeferredValue, useEffect, useId, useLayoutEffect, useMemo, useRef, useState, type CSSProperties, type KeyboardEvent, type MouseEvent } from 'react';
 import { defaultRangeExtractor, useVirtualizer, type Range } from '@tanstack/react-virtual';
 import type { Gradebook, Score } from '../../engine/model';
-import type { ItemStatus } from '../../engine/results';
 import type { ScoreTokens } from '../../bridge/contract';
 import { acceptedForms, formatScore, parseScore } from '../../engine/grading/parseScore';
 import { formatPoints } from './cellView';
@@ -49,7 +50,8 @@ export interface RosterGridProps {
   rows: readonly number[];
   tokens: ScoreTokens;
   finalFor(studentId: string): number | null;
-  statusesFor(studentId: string): ReadonlyMap<string, ItemStatus>;
+  /** The assessment ids dropped for a student (by gradebook index); the same set for the same student. */
+  droppedFor(studentIndex: number): ReadonlySet<string>;
   onSetScore(studentIndex: number, assessmentIndex: number, score: Score): void;
 }
 
@@ -85,7 +87,7 @@ function cellAt(target: EventTarget): Active | null {
   return r === undefined || c === undefined || !Number.isInteger(r) || !Number.isInteger(c) ? null : { row: r, col: c };
 }
 
-export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onSetScore }: RosterGridProps) {
+export function RosterGrid({ gradebook, rows, tokens, finalFor, droppedFor, onSetScore }: RosterGridProps) {
   const gridId = useId();
   const scrollRef = useRef<HTMLDivElement>(null);
   const [active, setActive] = useState<Active>({ row: 0, col: FIXED });
@@ -127,9 +129,13 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
   const last = rowVirtualizer.range?.endIndex ?? -1;
   const settledFirst = useDeferredValue(first);
   const settledLast = useDeferredValue(last);
+  // No overscan while the grid is being scrolled (the virtualiser's isScrolling: a scroll event in
+  // the last 150 ms): every step of a long scroll would build rows the next step removes unseen.
+  // It is added when the scroll stops, for small scrolls and keyboard moves.
+  const overscan = rowVirtualizer.isScrolling ? 0 : OVERSCAN_ROWS;
   const shown = useMemo(
-    () => rowWindow({ count: rowCount, first, last, settledFirst, settledLast, overscan: OVERSCAN_ROWS, active: row }),
-    [rowCount, first, last, settledFirst, settledLast, row],
+    () => rowWindow({ count: rowCount, first, last, settledFirst, settledLast, overscan, active: row }),
+    [rowCount, first, last, settledFirst, settledLast, overscan, row],
   );
   const rowTop = (i: number) => rowVirtualizer.measurementsCache[i]?.start ?? i * ROW_HEIGHT;
   // The run's rows lie in normal flow under a top padding (no per-row inline style).
@@ -318,7 +324,7 @@ export function RosterGrid({ gradebook, rows, tokens, finalFor, statusesFor, onS
                 detachedTop={index === shown.detached ? rowTop(index) : null}
                 student={student}
                 scores={gradebook.scores[studentIndex]}
-                statuses={statusesFor(student.id)}
+                dropped={droppedFor(studentIndex)}
                 final={finalFor(student.id)}
                 assessments={assessments}
                 cols={virtualCols}

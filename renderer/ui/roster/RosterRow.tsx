@@ -1,6 +1,6 @@
 /**
  * One student's row of the Roster grid. Memoised: a scroll render passes the same props to every
- * row that stays in view (same student, score row, item statuses, final, column window), so React
+ * row that stays in view (same student, score row, dropped items, final, column window), so React
  * skips them and only builds the rows that scrolled in. Editing a score gives the row a new score
  * row (the store replaces it, undo brings the old one back) and a new final, so it re-renders.
  *
@@ -10,7 +10,6 @@
 import { memo, type ChangeEvent, type KeyboardEvent } from 'react';
 import type { VirtualItem } from '@tanstack/react-virtual';
 import type { Assessment, Score, Student } from '../../engine/model';
-import type { ItemStatus } from '../../engine/results';
 import { cellView, formatPoints } from './cellView';
 
 export const ROW_HEIGHT = 34;
@@ -46,7 +45,8 @@ export interface RosterRowProps {
   readonly detachedTop: number | null;
   readonly student: Student;
   readonly scores: readonly Score[] | undefined;
-  readonly statuses: ReadonlyMap<string, ItemStatus>;
+  /** Assessment ids the drop-lowest rule left out for this student (droppedItems.ts). */
+  readonly dropped: ReadonlySet<string>;
   readonly final: number | null;
   readonly assessments: readonly Assessment[];
   /** The assessment columns in the DOM (the column virtualiser's window). */
@@ -117,16 +117,14 @@ export const RosterRow = memo(function RosterRow(p: RosterRowProps) {
             </div>
           );
         }
-        const view = cellView(p.scores?.[vc.index], a.possible, p.statuses.get(a.id));
+        const view = cellView(p.scores?.[vc.index], a.possible, p.dropped.has(a.id));
         return (
           <div
             key={a.id}
             role="gridcell"
             aria-colindex={c + 1}
             aria-label={view.label}
-            className={`wb-cell wb-num wb-cell-${view.state}${view.dropped ? ' wb-cell-dropped' : ''}`}
-            data-state={view.state}
-            data-dropped={view.dropped ? 'true' : undefined}
+            className={`wb-cell wb-num wb-score wb-cell-${view.state}${view.dropped ? ' wb-cell-dropped' : ''}`}
             data-cell={`${index}:${c}`}
             tabIndex={tab(c)}
           >

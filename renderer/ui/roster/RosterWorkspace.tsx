@@ -13,7 +13,8 @@ import { useCallback, useDeferredValue, useId, useMemo, useState } from 'react';
 import { useCourseStore } from '../../state/courseStore';
 import { DEFAULT_TOKENS } from '../../engine/grading/parseScore';
 import type { Score } from '../../engine/model';
-import { itemStatusesFor, studentResultMap } from '../results/resultsAccess';
+import { studentResultMap } from '../results/resultsAccess';
+import { droppedItems } from './droppedItems';
 import { RosterGrid } from './RosterGrid';
 import './roster.css';
 
@@ -44,19 +45,14 @@ export function RosterWorkspace() {
   }, [gradebook, section, deferredSearch]);
 
   const byId = useMemo(() => studentResultMap(results), [results]);
-  // Each visible row's item statuses are built once per grading and then reused on every scroll
-  // render (rows re-enter the view often); never for rows that are not shown.
-  const statusesFor = useMemo(() => {
-    const cache = new Map<string, ReturnType<typeof itemStatusesFor>>();
-    return (studentId: string) => {
-      let statuses = cache.get(studentId);
-      if (statuses === undefined) {
-        statuses = itemStatusesFor(byId.get(studentId));
-        cache.set(studentId, statuses);
-      }
-      return statuses;
-    };
-  }, [byId]);
+  // The dropped items of each row on screen, from the engine's drop rule for that one student
+  // (droppedItems.ts): no explanation lines are built or kept for the rows a scroll passes.
+  const plan = project?.plan;
+  const droppedFor = useMemo(() => {
+    if (gradebook === undefined || plan === undefined) return () => new Set<string>();
+    const dropped = droppedItems(gradebook, plan);
+    return (studentIndex: number) => dropped.of(studentIndex);
+  }, [gradebook, plan]);
   const finalFor = useCallback((studentId: string) => byId.get(studentId)?.final ?? null, [byId]);
   const onSetScore = useCallback(
     (studentIndex: number, assessmentIndex: number, score: Score) => apply({ kind: 'setScore', studentIndex, assessmentIndex, score }),
@@ -108,7 +104,7 @@ export function RosterWorkspace() {
         rows={rows}
         tokens={tokens}
         finalFor={finalFor}
-        statusesFor={statusesFor}
+        droppedFor={droppedFor}
         onSetScore={onSetScore}
       />
     </section>

@@ -4,7 +4,6 @@
  * tests agree.
  */
 import type { Score } from '../../engine/model';
-import type { ItemStatus } from '../../engine/results';
 
 export type CellState = 'earned' | 'above' | 'missing' | 'excused' | 'pending';
 
@@ -20,12 +19,23 @@ export interface CellView {
 
 const pointsFormat = new Intl.NumberFormat('en', { maximumFractionDigits: 2, useGrouping: false });
 
+/** Formatted points, by value: a screen of scores holds few distinct values, formatting is not cheap. */
+const formatted = new Map<number, string>();
+const FORMATTED_KEEP = 4096;
+
 export function formatPoints(points: number): string {
-  return pointsFormat.format(points);
+  // A Map key does not tell -0 from 0, which the format does ("-0").
+  if (Object.is(points, -0)) return pointsFormat.format(points);
+  let text = formatted.get(points);
+  if (text === undefined) {
+    text = pointsFormat.format(points);
+    if (formatted.size < FORMATTED_KEEP) formatted.set(points, text);
+  }
+  return text;
 }
 
-export function cellView(score: Score | undefined, possible: number, status: ItemStatus | undefined): CellView {
-  const dropped = status === 'dropped';
+/** `dropped`: the student's drop-lowest rule left this item out (droppedItems.ts). */
+export function cellView(score: Score | undefined, possible: number, dropped: boolean): CellView {
   const droppedWords = dropped ? ', dropped by drop lowest' : '';
   if (score === undefined || score.kind === 'missing') {
     return { state: 'missing', text: '—', dropped, label: `missing${droppedWords}` };

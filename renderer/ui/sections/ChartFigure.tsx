@@ -2,10 +2,15 @@
  * One chart: a keyboard-reachable <figure> holding the Plot SVG, a readout that arrow keys step
  * through (the values a pointer user sees on hover), and the numbers behind the chart as a table
  * behind a visible toggle — the chart's text alternative, built when the toggle is opened
- * (LazyDetails).
+ * (LazyDetails). The SVG is built before the next paint when the chart is on screen, else just
+ * after it (drawSoon).
  */
-import { useEffect, useId, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { createContext, useContext, useId, useLayoutEffect, useRef, useState, type KeyboardEvent, type ReactNode } from 'react';
+import { drawSoon, inViewport } from './drawSoon';
 import { LazyDetails } from './LazyDetails';
+
+/** True inside a panel of charts built after the first paint, because it was below the screen then. */
+export const ChartsBuiltLate = createContext(false);
 
 export function ChartFigure({ chart, title, build, readoutCount, readout, table, children }: {
   /** data-chart value, for tests and styling. */
@@ -26,12 +31,28 @@ export function ChartFigure({ chart, title, build, readoutCount, readout, table,
   const [active, setActive] = useState<number | null>(null);
   const ids = { caption: useId(), readout: useId() };
 
-  useEffect(() => {
+  // A chart on screen is drawn before the browser paints; one below it soon after (drawSoon.ts).
+  // data-drawn says whether the chart shown is the one for the current inputs. Charts whose panel
+  // was itself built after the first paint (below the screen then) queue their first drawing
+  // without asking where they are: that question lays out the page inside the task.
+  const queueFirst = useContext(ChartsBuiltLate);
+  const drawnOnce = useRef(false);
+  useLayoutEffect(() => {
     const el = host.current;
     if (el === null) return;
-    const node = build(document);
-    el.replaceChildren(...(node === null ? [] : [node]));
-  }, [build]);
+    const draw = () => {
+      const node = build(document);
+      el.replaceChildren(...(node === null ? [] : [node]));
+      el.setAttribute('data-drawn', 'true');
+      drawnOnce.current = true;
+    };
+    if (!(queueFirst && !drawnOnce.current) && inViewport(el)) {
+      draw();
+      return;
+    }
+    el.setAttribute('data-drawn', 'false');
+    return drawSoon(draw);
+  }, [build, queueFirst]);
 
   const current = active !== null && active < readoutCount ? active : null;
 

@@ -24,7 +24,9 @@ export const BIN_RULE_NAMES: Record<BinRuleKind, string> = {
 };
 
 function Legend({ sections }: { sections: readonly string[] }) {
-  const colors = useMemo(() => sectionColors(document, sections), [sections]);
+  // By the names, not the array (a new one each render): the colours need a Plot scale.
+  const key = JSON.stringify(sections);
+  const colors = useMemo(() => sectionColors(document, JSON.parse(key) as string[]), [key]);
   return (
     <ul className="wb-legend" aria-label="Section colours">
       {sections.map((s) => (

@@ -4,18 +4,22 @@
  * charts, the comparison in plain words, and the per-assessment item analysis. Also where marks
  * leave the app: the export dialog and the printable report.
  *
- * The statistics table and the charts are in the first paint. The comparison (a test for every
+ * The statistics table is in the first paint, and so are the charts when they are on screen then
+ * (in a window of ordinary height they are below the table and follow just after that paint,
+ * one chart per slice: drawSoon.ts). The comparison (a test for every
  * pair of sections) and the item analysis (a rest mark per assessment) take far longer on a large
  * course, so they are computed after that paint, in slices (useAfterPaint), with a polite
  * "computing" status in their place meanwhile.
  *
  * Every number is the engine's (analysis/, stats/); this screen arranges and labels them.
  */
-import { useId, useMemo, useState } from 'react';
+import { useId, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { comparisonSteps } from '../../engine/analysis/compareSections';
 import { itemAnalysisSteps } from '../../engine/analysis/itemAnalysis';
 import type { Measure } from '../../engine/analysis/measure';
-import { sectionStatistics } from '../../engine/analysis/sectionStatistics';
+import { sectionStatistics, type SectionStatistics } from '../../engine/analysis/sectionStatistics';
+import type { Gradebook, GradeScale } from '../../engine/model';
+import type { StudentResult } from '../../engine/results';
 import { finalMarkStatistics } from '../../engine/fast/finalMarkStatistics';
 import { sortedCutoffs } from '../../engine/grading/gradeScale';
 import { QUANTILE_METHODS, QUANTILE_TYPES, type QuantileType } from '../../engine/stats/quantile';
@@ -23,7 +27,9 @@ import { useCourseStore } from '../../state/courseStore';
 import { Button } from '../common/Button';
 import { ReportPreview } from '../report/ReportPreview';
 import { letterDistribution } from './chartData';
+import { ChartsBuiltLate } from './ChartFigure';
 import { ComparisonPanel } from './ComparisonPanel';
+import { drawSoon, inViewport } from './drawSoon';
 import { ItemAnalysisTable } from './ItemAnalysisTable';
 import { BoxPlotFigure, EcdfFigure, HistogramFigure, LetterFigure } from './SectionCharts';
 import { StatisticsTable } from './StatisticsTable';
@@ -57,13 +63,17 @@ export function SectionsWorkspace() {
   }, [measureValue, book, plan]);
 
   const stats = useMemo(() => {
-    if (book === undefined || students === undefined) return null;
-    // Final marks (the default view) on the fast path: each section sorted once, same numbers.
-    const s = measure.kind === 'final' ? finalMarkStatistics(book, students, quantileType) : sectionStatistics(book, students, { quantileType, measure });
-    if (measure.kind !== 'category') return s;
-    const name = plan?.categories.find((c) => c.id === measure.categoryId)?.name ?? measure.categoryId;
-    return { ...s, label: `${name} (category %)` };
-  }, [book, students, quantileType, measure, plan]);
+    if (book === undefined || students === undefined || results === null) return null;
+    // Kept per course result (replaced on every gradebook or plan change), so coming back to
+    // Sections without a change does not compute the same statistics again.
+    return remembered(results, `${quantileType}|${measureKey(measure)}`, () => {
+      // Final marks (the default view) on the fast path: each section sorted once, same numbers.
+      const s = measure.kind === 'final' ? finalMarkStatistics(book, students, quantileType) : sectionStatistics(book, students, { quantileType, measure });
+      if (measure.kind !== 'category') return s;
+      const name = plan?.categories.find((c) => c.id === measure.categoryId)?.name ?? measure.categoryId;
+      return { ...s, label: `${name} (category %)` };
+    });
+  }, [book, students, results, quantileType, measure, plan]);
 
   // Both depend on the course result (replaced on every gradebook or plan change) and, for the
   // comparison, on the measure's values; neither on the quartile method. The step functions run
@@ -71,18 +81,17 @@ export function SectionsWorkspace() {
   const comparison = useAfterPaint(stats === null ? null : results, `comparison of ${measureKey(measure)}`, () =>
     comparisonSteps(stats!.sections.filter((s) => s.values.length > 0).map((s) => ({ section: s.section, values: s.values }))),
   );
+  // Memoised: a new array would redraw the histogram on every render of this screen.
+  const scale = plan?.scale;
+  const cutoffs = useMemo(() => (measure.kind === 'final' && scale !== undefined ? sortedCutoffs(scale) : null), [measure.kind, scale]);
   const items = useAfterPaint(book === undefined || plan === undefined ? null : results, 'item analysis', () => itemAnalysisSteps(book!, plan!));
-  const letters = useMemo(
-    () => (book === undefined || plan === undefined || students === undefined || stats === null ? null : letterDistribution(book, students, plan.scale, stats.sections.map((s) => s.section))),
-    [book, plan, students, stats],
-  );
 
-  if (project === null || book === undefined || plan === undefined || stats === null || letters === null || results === null) {
+  if (project === null || book === undefined || plan === undefined || stats === null || results === null) {
     return <div className="wb-sections"><p>Open or import a course to see its statistics.</p></div>;
   }
 
   const categoryName = (id: string | null) => (id === null ? 'not graded' : (plan.categories.find((c) => c.id === id)?.name ?? id));
-  const cutoffs = measure.kind === 'final' ? sortedCutoffs(plan.scale) : null;
+
 
   return (
     <section className="wb-sections" aria-labelledby={ids.title}>
@@ -119,15 +128,16 @@ export function SectionsWorkspace() {
         <StatisticsTable stats={stats} captionId={ids.stats} />
       </section>
 
-      <section className="wb-panel" aria-label="Distribution charts">
-        <h2>Distributions</h2>
-        <div className="wb-charts">
-          <BoxPlotFigure stats={stats} />
-          <HistogramFigure stats={stats} cutoffs={cutoffs} />
-          <EcdfFigure stats={stats} />
-          <LetterFigure dist={letters} />
-        </div>
-      </section>
+      <Distributions>
+        {() => (
+          <>
+            <BoxPlotFigure stats={stats} />
+            <HistogramFigure stats={stats} cutoffs={cutoffs} />
+            <EcdfFigure stats={stats} />
+            <Letters book={book} students={results.students} scale={plan.scale} stats={stats} />
+          </>
+        )}
+      </Distributions>
 
       <section className="wb-panel" aria-label="Comparison of sections" aria-busy={!comparison.ready}>
         <h2>Comparing sections on {stats.label}</h2>
@@ -146,8 +156,55 @@ export function SectionsWorkspace() {
   );
 }
 
+const statistics = new WeakMap<object, Map<string, SectionStatistics>>();
+
+/** The statistics `key` of `owner` (a course result), computed once. */
+function remembered(owner: object, key: string, compute: () => SectionStatistics): SectionStatistics {
+  let byKey = statistics.get(owner);
+  if (byKey === undefined) statistics.set(owner, (byKey = new Map()));
+  let s = byKey.get(key);
+  if (s === undefined) byKey.set(key, (s = compute()));
+  return s;
+}
+
 function measureKey(measure: Measure): string {
   return measure.kind === 'final' ? 'final' : measure.kind === 'category' ? `cat:${measure.categoryId}` : `asm:${measure.assessmentId}`;
+}
+
+/** The letter-grade chart, its counts taken from the results when the chart is built. */
+function Letters({ book, students, scale, stats }: { book: Gradebook; students: readonly StudentResult[]; scale: GradeScale; stats: SectionStatistics }) {
+  const dist = useMemo(() => letterDistribution(book, students, scale, stats.sections.map((s) => s.section)), [book, students, scale, stats]);
+  return <LetterFigure dist={dist} />;
+}
+
+/**
+ * The distribution charts' panel. Its figures (their data, controls and SVGs) are built in the
+ * first paint only when the panel is on screen then; below the statistics table, as it is in a
+ * window of ordinary height, they follow just after that paint (drawSoon.ts), and each chart's
+ * SVG after that in its own slice. Once built they update with the statistics like the table.
+ */
+function Distributions({ children }: { children: () => ReactNode }) {
+  const panel = useRef<HTMLElement>(null);
+  const [built, setBuilt] = useState<'no' | 'inFirstPaint' | 'late'>('no');
+  useLayoutEffect(() => {
+    if (built !== 'no' || panel.current === null) return;
+    if (inViewport(panel.current)) {
+      setBuilt('inFirstPaint');
+      return;
+    }
+    return drawSoon(() => setBuilt('late'));
+  }, [built]);
+  return (
+    <section ref={panel} className="wb-panel" aria-label="Distribution charts" aria-busy={built === 'no'}>
+      <h2>Distributions</h2>
+      <Computing what="the distribution charts" busy={built === 'no'} testId="charts-status" />
+      {built !== 'no' && (
+        <ChartsBuiltLate.Provider value={built === 'late'}>
+          <div className="wb-charts">{children()}</div>
+        </ChartsBuiltLate.Provider>
+      )}
+    </section>
+  );
 }
 
 /**
