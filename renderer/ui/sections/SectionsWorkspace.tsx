@@ -67,8 +67,12 @@ export function SectionsWorkspace() {
     // Kept per course result (replaced on every gradebook or plan change), so coming back to
     // Sections without a change does not compute the same statistics again.
     return remembered(results, `${quantileType}|${measureKey(measure)}`, () => {
-      // Final marks (the default view) on the fast path: each section sorted once, same numbers.
-      const s = measure.kind === 'final' ? finalMarkStatistics(book, students, quantileType) : sectionStatistics(book, students, { quantileType, measure });
+      // Final marks (the default view) on the fast path: each section sorted once, on the rounding
+      // grid (any decimals give the same numbers; the plan's make it a counting sort).
+      const s =
+        measure.kind === 'final'
+          ? finalMarkStatistics(book, students, quantileType, plan?.rounding.decimals)
+          : sectionStatistics(book, students, { quantileType, measure });
       if (measure.kind !== 'category') return s;
       const name = plan?.categories.find((c) => c.id === measure.categoryId)?.name ?? measure.categoryId;
       return { ...s, label: `${name} (category %)` };
