@@ -56,8 +56,7 @@ export function checkPlan(book: Gradebook, plan: GradingPlan): string[] {
       problems.push(`Category "${c.name}" has no assessments; it is left out of the current mark and counts as 0 in the projected final.`);
     }
   }
-  const sections = new Set(book.students.map((s) => s.section));
-  const studentIds = new Set(book.students.map((s) => s.id));
+  const { sections, studentIds, scoreProblems } = rosterFacts(book);
   for (const w of plan.sectionWaivers) {
     if (!categoryIds.has(w.categoryId)) problems.push(`A waiver for section "${w.section}" names unknown category "${w.categoryId}".`);
     if (!sections.has(w.section)) problems.push(`A waiver names section "${w.section}", which has no students.`);
@@ -77,23 +76,51 @@ export function checkPlan(book: Gradebook, plan: GradingPlan): string[] {
   if (!Number.isInteger(plan.rounding.decimals) || plan.rounding.decimals < 0 || plan.rounding.decimals > 6) {
     problems.push(`Rounding to ${plan.rounding.decimals} decimals is not possible; use a whole number from 0 to 6 (0 is used).`);
   }
+  problems.push(...scoreProblems);
+  problems.push(...validateScale(plan.scale));
+  return problems;
+}
+
+interface RosterFacts {
+  readonly sections: ReadonlySet<string>;
+  readonly studentIds: ReadonlySet<string>;
+  /** The checks that read only the gradebook (every score cell, every row's length). */
+  readonly scoreProblems: readonly string[];
+}
+
+/**
+ * What checkPlan needs from the gradebook alone, once per gradebook object: a plan edit (a weight
+ * typed in the Plan step) re-checks the plan, not 10 000 × 60 score cells. Gradebooks are
+ * immutable (model.ts: readonly throughout; every edit makes a new one), so the object is the key.
+ */
+const rosterFactsOf = new WeakMap<Gradebook, RosterFacts>();
+
+function rosterFacts(book: Gradebook): RosterFacts {
+  const known = rosterFactsOf.get(book);
+  if (known !== undefined) return known;
+  const scoreProblems: string[] = [];
   book.scores.forEach((row, i) => {
     row.forEach((cell, j) => {
       if (cell.kind === 'earned' && !(Number.isFinite(cell.points) && cell.points >= 0)) {
         const who = book.students[i]?.id ?? `row ${i + 1}`;
         const what = book.assessments[j]?.name ?? `column ${j + 1}`;
-        problems.push(`Student ${who} has ${cell.points} points on "${what}"; points must be a number 0 or more (counted as 0 until fixed).`);
+        scoreProblems.push(`Student ${who} has ${cell.points} points on "${what}"; points must be a number 0 or more (counted as 0 until fixed).`);
       }
     });
     if (row.length !== book.assessments.length) {
-      problems.push(`Gradebook row ${i + 1} has ${row.length} scores for ${book.assessments.length} assessments; absent scores are treated as missing.`);
+      scoreProblems.push(`Gradebook row ${i + 1} has ${row.length} scores for ${book.assessments.length} assessments; absent scores are treated as missing.`);
     }
   });
   if (book.scores.length !== book.students.length) {
-    problems.push(`The gradebook has ${book.students.length} students but ${book.scores.length} score rows; absent rows are treated as missing.`);
+    scoreProblems.push(`The gradebook has ${book.students.length} students but ${book.scores.length} score rows; absent rows are treated as missing.`);
   }
-  problems.push(...validateScale(plan.scale));
-  return problems;
+  const facts: RosterFacts = {
+    sections: new Set(book.students.map((s) => s.section)),
+    studentIds: new Set(book.students.map((s) => s.id)),
+    scoreProblems,
+  };
+  rosterFactsOf.set(book, facts);
+  return facts;
 }
 
 /** The rounding decimals actually used: the plan's if valid, else 0 (reported by checkPlan). */

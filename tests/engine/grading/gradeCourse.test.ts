@@ -314,3 +314,20 @@ describe('checkPlan: the rest of the checks', () => {
     expect(new Set(r.lines.filter((l) => l.kind === 'item').map((l) => l.kind === 'item' && l.assessmentId))).toEqual(new Set(['a']));
   });
 });
+
+describe('checkPlan on one gradebook under several plans', () => {
+  it('gives for each plan what a fresh copy of the gradebook gives (the gradebook checks are kept per gradebook)', () => {
+    const cols: Column[] = [{ id: 'a', possible: 10, categoryId: 'x' }];
+    const b = book(cols, [{ student: { id: 's', section: 'A' }, scores: [E(Number.NaN)] }, { student: { id: 't', section: 'B' }, scores: [E(4)] }]);
+    const plans: GradingPlan[] = [
+      plan(cols, [category('x', 100)]),
+      plan(cols, [category('x', 60)], { sectionWaivers: [{ section: 'C', categoryId: 'x' }], studentWaivers: [{ studentId: 't', categoryId: 'x' }] }),
+      plan(cols, [category('x', 100)], { adjustments: [{ kind: 'addPoints', section: 'A', points: 1 }] }),
+    ];
+    for (const p of plans) expect(checkPlan(b, p)).toStrictEqual(checkPlan(structuredClone(b), p));
+    // A new gradebook (an edit) is checked afresh: the NaN cell fixed, its problem gone.
+    const fixed: Gradebook = { ...b, scores: [[E(3)], b.scores[1]!] };
+    expect(checkPlan(b, plans[0]!).some((m) => m.includes('NaN points'))).toBe(true);
+    expect(checkPlan(fixed, plans[0]!).some((m) => m.includes('NaN points'))).toBe(false);
+  });
+});
