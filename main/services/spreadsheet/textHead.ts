@@ -80,9 +80,14 @@ export class TextHead {
     private readonly sink: HeadSink,
   ) {}
 
+  /** The layout detected on the head. */
+  static detecting(sink: HeadSink): TextHead {
+    return new TextHead(null, 0, sink);
+  }
+
   /** `given` null: detect the layout on the head. Null: a given layout whose rows the whole-book import should judge. */
   static open(given: ImportLayout | null, sink: HeadSink): TextHead | null {
-    if (given === null) return new TextHead(null, 0, sink);
+    if (given === null) return TextHead.detecting(sink);
     const start = startRowOf(given);
     return start === null ? null : new TextHead(given, start, sink);
   }
