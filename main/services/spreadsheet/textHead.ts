@@ -71,6 +71,8 @@ export class TextHead {
   private readonly rows: Cell[][] = [];
   private plan: (HeadPlan & { readonly problems: ImportProblem[] }) | null = null;
   private check: LaterRowCheck = NOTHING_TO_CHECK;
+  /** The plan's reader, kept in a field: read once per row. */
+  private reader: StudentRows | null = null;
   private firstRow = Number.MAX_SAFE_INTEGER;
 
   private constructor(
@@ -99,7 +101,7 @@ export class TextHead {
 
   /** Errors reported so far (any means nothing will be imported). */
   get errors(): number {
-    return this.plan?.reader?.errors ?? 0;
+    return this.reader?.errors ?? 0;
   }
 
   /**
@@ -109,7 +111,8 @@ export class TextHead {
    * or the sink's `planned` said so.
    */
   take(row: Cell[], r: number, table: TextTable): boolean {
-    while (row.length > 0 && isBlank(row[row.length - 1])) row.pop();
+    const blank = isBlank; // one binding read, not one per call (module getters under tsx)
+    while (row.length > 0 && blank(row[row.length - 1])) row.pop();
     if (this.plan === null) {
       this.rows.push(row);
       const ready = this.given === null ? this.rows.length >= HEAD_ROWS : r >= this.start && !allBlank(row);
@@ -157,6 +160,7 @@ export class TextHead {
     const p = plan?.sheets[0];
     const reader = plan === null || p === undefined ? null : new StudentRows(p, layout, plan.assessments, plan.assessmentIndex, new Map(), problems);
     this.plan = { layout, earlier, problems, assessments: plan?.assessments ?? [], reader };
+    this.reader = reader;
     this.firstRow = reader?.firstRow ?? Number.MAX_SAFE_INTEGER;
     if (!this.sink.planned(this.plan)) return false;
     const rows = this.rows;
@@ -166,7 +170,7 @@ export class TextHead {
   }
 
   private read(r: number, row: readonly Cell[]): void {
-    const got = this.plan?.reader?.row(r, row);
+    const got = this.reader?.row(r, row);
     if (got !== null && got !== undefined) this.sink.student(got);
   }
 
