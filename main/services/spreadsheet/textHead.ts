@@ -73,7 +73,13 @@ export class TextHead {
   private check: LaterRowCheck = NOTHING_TO_CHECK;
   /** The plan's reader, kept in a field: read once per row. */
   private reader: StudentRows | null = null;
-  private firstRow = Number.MAX_SAFE_INTEGER;
+  /**
+   * The reader's first student row (0 without a reader: `read` then reads nothing). A small
+   * integer, never a sentinel such as MAX_SAFE_INTEGER: V8 would keep the field, and the row
+   * numbers counted from it, as doubles — and every student's "first seen on row" record
+   * (StudentRows' IdsSeen) would then hold a boxed number, 16 bytes a student.
+   */
+  private firstRow = 0;
 
   private constructor(
     private readonly given: ImportLayout | null,
@@ -161,7 +167,7 @@ export class TextHead {
     const reader = plan === null || p === undefined ? null : new StudentRows(p, layout, plan.assessments, plan.assessmentIndex, new Map(), problems);
     this.plan = { layout, earlier, problems, assessments: plan?.assessments ?? [], reader };
     this.reader = reader;
-    this.firstRow = reader?.firstRow ?? Number.MAX_SAFE_INTEGER;
+    this.firstRow = reader?.firstRow ?? 0;
     if (!this.sink.planned(this.plan)) return false;
     const rows = this.rows;
     for (let k = this.firstRow; k < rows.length; k++) this.read(k, rows[k] ?? []);
