@@ -12,6 +12,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../main/cli';
+import { streamImportText } from '../../main/services/spreadsheet';
 
 const root = fileURLToPath(new URL('../../', import.meta.url));
 const demoCsv = join(root, 'demo-data', 'glaciology-231.csv');
@@ -185,6 +186,24 @@ describe('grade streams a text gradebook with the in-memory output', () => {
     expect(j.stream.code).toBe(0);
     expect(j.stream.stdout).toBe(j.memory.stdout);
     expect(j.stream.stdout).toContain('\u00c9tudent'); // 0xC9 is É in Windows-1252
+  }, 120_000);
+
+  it('a file over the detection prefix whose last row has a cell past column XFD: imported in memory, the same output', async () => {
+    // Detection on the first rows alone would not see the cell; the whole file's detection warns
+    // that cells past XFD were ignored. The head-and-check rule (textHead.ts) sees a row wider than
+    // the head and sends the import to memory, so the warning is there in both runs.
+    const csv = join(work, 'lateColumn.csv');
+    const body = gradebookCsv(90_000).replace(/Nguyễn/g, 'Nguyen');
+    expect(Buffer.byteLength(body)).toBeGreaterThan(4 * 1024 * 1024);
+    await writeFile(csv, `${body}S-late,Late,A,1,1,1,1,1,1,1${','.repeat(16_400)}note\r\n`);
+    const planPath = join(work, 'lateColumn.plan.json');
+    await writeFile(planPath, JSON.stringify(plan));
+    expect(await streamImportText(csv, { begin: () => undefined, row: () => undefined })).toBeNull();
+    const j = await both(['grade', csv, '--plan', planPath, '--json']);
+    expect(j.stream.code).toBe(0);
+    expect(j.stream.stdout).toBe(j.memory.stdout);
+    expect(j.stream.stderr).toEqual(j.memory.stderr);
+    expect(j.stream.stderr.join('\n')).toMatch(/cells to the right of column XFD/);
   }, 120_000);
 
   it('errors: the same located messages and exit code 1', async () => {

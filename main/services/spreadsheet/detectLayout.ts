@@ -37,7 +37,7 @@ const CONTENT_SAMPLE_ROWS = 200;
  * rows < HEADER_SEARCH_ROWS (the widest row among the first 2·HEADER_SEARCH_ROWS), points possible
  * at most 3 rows below it, and each column's content sampled over CONTENT_SAMPLE_ROWS rows from the
  * first data row. Below these rows detection only asks which columns and rows are filled at all.
- * The row-at-a-time text import (textImport.ts) detects on this many rows.
+ * The head-and-check rule of the row-at-a-time text imports (textHead.ts) detects on this many rows.
  */
 export const ROWS_READ_FROM_TOP = Math.max(2 * HEADER_SEARCH_ROWS, HEADER_SEARCH_ROWS + 3 + CONTENT_SAMPLE_ROWS);
 const NO_TOKENS: ScoreTokens = { excused: [], missing: [], pending: [] };

@@ -1,24 +1,28 @@
 /**
- * Streaming import of a text gradebook (.csv/.tsv) too large to hold as a grid of cells: the layout
- * is detected on the first rows, then the file is decoded and parsed row by row (papaparse step
- * mode) and each student row is handed to the caller as a Student and its Scores, with every
- * problem located exactly as the in-memory import locates it (sheet = file name, row, column
- * letter, header, value) and in the same order, so `detectAndImport` and this give the same
- * gradebook rows and the same problems (tested in tests/cli/streaming.test.ts).
+ * Streaming import of a text gradebook (.csv/.tsv) too large to hold as a grid of cells: the file
+ * is decoded and parsed row by row (papaparse step mode) and each student row is handed to the
+ * caller as a Student and its Scores, with every problem located exactly as the in-memory import
+ * locates it (sheet = file name, row, column letter, header, value) and in the same order, so
+ * `detectAndImport` and this give the same gradebook rows and the same problems (tested in
+ * tests/services/spreadsheet/stream.test.ts and tests/cli/streaming.test.ts).
  *
- * Why detection on a prefix gives the in-memory layout: detectLayout reads at most the first 60
- * rows for the header, three rows below it for points possible and 200 data rows for each
- * column's content; papaparse guesses the delimiter from the first 10 rows and the line break from
- * the first 1 MiB of text. The prefix holds 4 MiB of bytes and at least that many rows — else, or
- * whenever the prefix is unusual (a quoted field cut at its end, no data rows in it, any error in
- * the layout), `streamImportText` returns null and the caller imports in memory, which gives the
- * in-memory messages by construction.
+ * The layout: the rows go through a `TextHead` (textHead.ts), the head-and-check rule of the
+ * in-memory row-at-a-time import — its first rows decide the layout, and a later row that could
+ * change it stops the stream: `streamImportText` returns null and the caller imports in memory,
+ * which gives the in-memory result by construction. So does a head the stream does not import
+ * (any error in its detection or planning, no sheet, sections from sheet names).
+ *
+ * The reading: the first STREAM_PREFIX_BYTES of the file decide what the whole-file reader
+ * decides from the start of the text — the encoding (below), the delimiter (papaparse guesses it
+ * from the first 10 rows) and the line break (from the first 1 MiB of text). The prefix must hold
+ * those (and have no malformed row among them), or be the whole file; else null (import in memory).
  *
  * Encoding: a byte-order mark or the UTF-16 NUL pattern decide from the first 4 KiB as in
  * textEncoding.ts; otherwise the file is decoded as strict UTF-8 and, if a byte later in the file
  * is not UTF-8, read again from the start as Windows-1252 (what the whole-file detection decides).
  *
- * Memory: one row of cells at a time plus one entry per student ID (duplicate detection).
+ * Memory: the head's rows, then one row of cells at a time plus one entry per student ID
+ * (duplicate detection).
  */
 import { createReadStream } from 'node:fs';
 import { open, stat } from 'node:fs/promises';
@@ -27,18 +31,17 @@ import { Readable } from 'node:stream';
 import Papa from 'papaparse';
 import type { ImportLayout, ImportProblem, Result, TextEncoding } from '../../../renderer/bridge/contract';
 import type { Assessment, Score, Student } from '../../../renderer/engine/model';
-import { DEFAULT_TOKENS } from '../../../renderer/engine/grading/parseScore';
-import { planGradebook } from './buildGradebook';
-import { detectLayout } from './detectLayout';
-import { problemAt } from './problems';
-import { baseName, isBlank, readBook, type Cell } from './readBook';
-import { StudentRows, type PlannedSheet } from './studentRows';
-import { detectEncoding } from './textEncoding';
+import { fileProblem, hasErrors, problemAt } from './problems';
+import { baseName, readTextRows, type Cell, type TextTable } from './readBook';
+import { detectEncoding, decodeText } from './textEncoding';
+import { TextHead, type HeadPlan } from './textHead';
 
-/** Bytes read for layout detection, delimiter and line-break guessing. */
+/** Bytes read to guess the encoding, delimiter and line break as the whole-file reader does. */
 export const STREAM_PREFIX_BYTES = 4 * 1024 * 1024;
-/** Rows the prefix must hold beyond the first data row (detectLayout samples 200). */
-const DETECT_DATA_ROWS = 200;
+/** Rows papaparse's delimiter guess reads (guessDelimiter: a Parser with `preview: 10`, papaparse 5.7.1). */
+const DELIMITER_GUESS_ROWS = 10;
+/** Characters papaparse's line-break guess reads (guessLineEndings: `input.substring(0, 1024 * 1024)`). */
+const LINE_BREAK_GUESS_CHARS = 1024 * 1024;
 
 export interface StreamSink {
   /** Called before the first row, and again (start over) if the file must be re-read as Windows-1252. */
@@ -56,24 +59,19 @@ export interface StreamImportOutcome {
 }
 
 interface StreamStart {
-  readonly layout: ImportLayout;
   readonly encoding: TextEncoding;
   /** UTF-8 decided on the prefix only: a later non-UTF-8 byte means Windows-1252. */
   readonly tentative: boolean;
-  readonly delimiter: string;
+  /** The table as the whole-file reader names it (format, encoding, delimiter, sheet); its problems are the whole file's to decide. */
+  readonly table: TextTable;
   readonly newline: string;
-  readonly sheet: string;
-  readonly assessments: readonly Assessment[];
-  readonly assessmentIndex: ReadonlyMap<string, { readonly index: number }>;
-  readonly planned: PlannedSheet;
-  readonly dataStart: number;
-  readonly problems: readonly ImportProblem[];
 }
 
 /**
- * Streams `path` into `sink`. Null when the file should be imported in memory instead (not a
- * plain text table, or something in its first rows only the whole-file import reports exactly).
- * A failure is the in-memory import's refusal: the same message and problems.
+ * Streams `path` into `sink`. Null when the file should be imported in memory instead: not a
+ * plain text table, a prefix that does not settle the reading, a head the stream does not import,
+ * or a later row that could change the layout (the head-and-check rule). A failure is the
+ * in-memory import's refusal: the same message and problems.
  */
 export async function streamImportText(path: string, sink: StreamSink): Promise<Result<StreamImportOutcome> | null> {
   const fileName = basename(path);
@@ -138,55 +136,43 @@ function startFrom(prefix: Uint8Array, fileName: string, complete: boolean, forc
   const guess = forced === undefined ? guessEncoding(prefix, complete) : { encoding: forced, tentative: false };
   const bytes = complete ? prefix : prefix.subarray(0, cutAtLine(prefix, guess.encoding));
   if (bytes.length === 0) return null;
-  const read = readBook(bytes, fileName, { encoding: guess.encoding });
-  if (!read.ok) return null;
-  const book = read.book;
-  const sheet = book.sheets[0];
-  if (sheet === undefined || book.sheets.length !== 1 || book.delimiter === undefined) return null;
-  const detection = detectLayout(book, DEFAULT_TOKENS);
-  if (detection.problems.some((p) => p.severity === 'error')) return null;
-  const sl = detection.layout.sheets[0];
-  if (sl === undefined || detection.layout.sheets.length !== 1 || detection.layout.sectionFrom !== 'column') return null;
-  const dataStart = Math.max(sl.headerRow, sl.possibleRow ?? -1) + 1;
-  if (!complete) {
-    if (sheet.rows.length < dataStart + DETECT_DATA_ROWS) return null;
-    let anyRow = false;
-    for (let r = dataStart; r < sheet.rows.length && !anyRow; r++) anyRow = (sheet.rows[r] ?? []).some((c) => !isBlank(c));
-    if (!anyRow) return null;
-  }
-  // The sheet-level checks of the import (roles, points possible, duplicate headers) on the rows
-  // above the students; 'no-students' is decided after the last row.
-  const headOnly = { ...book, sheets: [{ ...sheet, rows: sheet.rows.slice(0, dataStart) }] };
-  const sheetProblems: ImportProblem[] = [];
-  const plan = planGradebook(headOnly, detection.layout, sheetProblems);
-  const planned = plan.sheets[0];
-  if (planned === undefined || sheetProblems.some((p) => p.severity === 'error')) return null;
-  const text = new TextDecoder(guess.encoding).decode(bytes);
-  const newline = Papa.parse<string[]>(text, { delimiter: book.delimiter, preview: 1 }).meta.linebreak;
-  // book.problems would only say the prefix has replaced characters: the whole file decides that.
-  return {
-    layout: detection.layout,
-    encoding: guess.encoding,
-    tentative: guess.tentative,
-    delimiter: book.delimiter,
-    newline,
-    sheet: sheet.name,
-    assessments: plan.assessments,
-    assessmentIndex: plan.assessmentIndex,
-    planned,
-    dataStart,
-    problems: [...detection.problems, ...sheetProblems],
-  };
+  // The delimiter: the reader's own, on the prefix; the rows papaparse guesses it from must be in it.
+  const read = readTextRows(bytes, fileName, { encoding: guess.encoding }, (_row, r) => r < DELIMITER_GUESS_ROWS);
+  if (read === null || !read.ok || (!complete && !read.stopped)) return null;
+  const text = decodeText(bytes, guess.encoding);
+  if (!complete && text.length < LINE_BREAK_GUESS_CHARS) return null;
+  const newline = Papa.parse<string[]>(text, { delimiter: read.table.delimiter, preview: 1 }).meta.linebreak;
+  // The prefix's problems would only say it has replaced characters: the whole file decides that.
+  return { encoding: guess.encoding, tentative: guess.tentative, table: { ...read.table, problems: [] }, newline };
 }
 
-async function readRows(path: string, start: StreamStart, sink: StreamSink): Promise<Result<StreamImportOutcome> | 'not-utf-8'> {
+/** What the stream imports: one planned sheet without errors so far, sections from its column; else import in memory. */
+function streamable(plan: HeadPlan): boolean {
+  return plan.reader !== null && plan.layout.sheets.length === 1 && plan.layout.sectionFrom === 'column' && !hasErrors(plan.earlier) && !hasErrors(plan.problems);
+}
+
+/**
+ * Every row of the file through a TextHead. Null when the head-and-check rule or the head's plan
+ * sends the import to memory; 'not-utf-8' when a tentative UTF-8 decoding met a byte that is not.
+ */
+async function readRows(path: string, start: StreamStart, sink: StreamSink): Promise<Result<StreamImportOutcome> | 'not-utf-8' | null> {
   const fileName = basename(path);
-  const problems: ImportProblem[] = [];
-  const reader = new StudentRows(start.planned, start.layout, start.assessments, start.assessmentIndex, new Map(), problems);
-  sink.begin(start.assessments, start.layout);
+  const table = start.table;
+  const head = TextHead.detecting({
+    planned(plan) {
+      if (!streamable(plan)) return false;
+      sink.begin(plan.assessments, plan.layout);
+      return true;
+    },
+    student(got) {
+      // After any error nothing is imported: the rows are still read for their problems.
+      if (head.errors === 0) sink.row(got.student, got.scores);
+    },
+  });
   let notUtf8 = false;
   let replaced = false;
-  let malformed: string | null = null;
+  let malformed: ImportProblem | null = null;
+  let stopped = false;
   async function* text(): AsyncGenerator<string> {
     const decoder = new TextDecoder(start.encoding, { fatal: start.tentative });
     try {
@@ -206,7 +192,7 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
   let r = 0;
   await new Promise<void>((resolve, reject) => {
     Papa.parse<string[]>(Readable.from(text()) as unknown as File, {
-      delimiter: start.delimiter,
+      delimiter: table.delimiter,
       newline: start.newline as '\r\n',
       header: false,
       dynamicTyping: false,
@@ -214,7 +200,7 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
       step: (result, parser) => {
         for (const err of result.errors) {
           if (err.type === 'Delimiter') continue;
-          malformed = `Sheet "${baseName(fileName)}", row ${r + 1}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`;
+          malformed = fileProblem('error', 'malformed-text', `Sheet "${baseName(fileName)}", row ${r + 1}: the file is not a well-formed delimited table (${err.message}). Check the quotes around that row or export the file again.`);
           parser.abort();
           return;
         }
@@ -224,10 +210,10 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
         }
         const cells = result.data as unknown as Cell[];
         for (let c = 0; c < cells.length; c++) if (cells[c] === '') cells[c] = null;
-        if (r >= start.dataStart) {
-          const got = reader.row(r, cells);
-          // After any error nothing is imported: the rows are still read for their problems.
-          if (got !== null && reader.errors === 0) sink.row(got.student, got.scores);
+        if (!head.take(cells, r, table)) {
+          stopped = true;
+          parser.abort();
+          return;
         }
         r++;
       },
@@ -236,19 +222,24 @@ async function readRows(path: string, start: StreamStart, sink: StreamSink): Pro
     });
   });
   if (notUtf8) return 'not-utf-8';
+  const refused = malformed as ImportProblem | null; // assigned in the step callback
+  if (refused !== null) return { ok: false, code: 'bad-input', message: refused.message, problems: [refused] };
+  // A later row could change the layout, or the head is not one the stream imports: in memory.
+  if (stopped || !head.end(table)) return null;
+  head.finish();
+  const plan = head.planned;
+  if (plan === null) return null; // not met: end() decided the head
   const readProblems: ImportProblem[] = [];
   if (replaced) {
-    readProblems.push(problemAt('warning', 'replaced-characters', { sheet: start.sheet }, `some characters could not be decoded as ${start.encoding} and show as "\uFFFD". Choose another encoding in the preview.`));
+    readProblems.push(problemAt('warning', 'replaced-characters', { sheet: table.sheet }, `some characters could not be decoded as ${start.encoding} and show as "\uFFFD". Choose another encoding in the preview.`));
   }
-  if (malformed !== null) return { ok: false, code: 'bad-input', message: malformed, problems: [{ severity: 'error', code: 'malformed-text', message: malformed }] };
-  reader.finish();
-  const all = [...readProblems, ...start.problems, ...problems];
+  const all = [...readProblems, ...plan.earlier, ...plan.problems];
   const errors = all.filter((p) => p.severity === 'error');
   if (errors.length > 0) {
     const first = errors[0]!;
     const message = errors.length === 1 ? first.message : `${errors.length} problems stop the import. The first: ${first.message}`;
     return { ok: false, code: 'bad-input', message, problems: all };
   }
-  const encodingLayout: ImportLayout = { ...start.layout, encoding: start.encoding };
-  return { ok: true, value: { layout: encodingLayout, assessments: start.assessments, problems: all, students: reader.count } };
+  const encodingLayout: ImportLayout = { ...plan.layout, encoding: start.encoding };
+  return { ok: true, value: { layout: encodingLayout, assessments: plan.assessments, problems: all, students: plan.reader?.count ?? 0 } };
 }
