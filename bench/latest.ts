@@ -63,7 +63,7 @@ function table(r: Result): string {
       (k) => `| ${k === 'cliMillion' ? '`weighbridge grade` (product CLI)' : 'bench-only streaming grader'} | ${num(r, k, 'rows')} | ${num(r, k, 'seconds')} | ${num(r, k, 'rowsPerSecond')} | ${num(r, k, 'peakRssMiB')} | ${num(r, k, 'ok')} |`,
     ),
     '',
-    '| renderer (Chromium) | students | weight edit → statistics painted, ms | demo course (baseline) ms | ratio | of which: Plan paint / Sections paint / Sections without edit, ms | comparison and item analysis also on screen, ms | long tasks > 50 ms per scroll (median; runs) | longest, ms |',
+    '| renderer (Chromium) | students | weight edit → statistics painted, ms | demo course (baseline) ms | ratio | of which: Plan paint / Sections paint / Sections without edit, ms | all four charts, the comparison and the item analysis on screen, ms | long tasks > 50 ms per scroll (median; runs) | longest, ms |',
     '|---|---|---|---|---|---|---|---|---|',
     `| ${num(r, 'renderer', 'measured') === 'true' ? 'measured' : 'not measured'} | ${num(r, 'renderer', 'students')} | ${num(r, 'renderer', 'weightEditToPaintMs')} | ${num(r, 'renderer', 'baselineMs')} | ${num(r, 'renderer', 'ratio')} | ${num(r, 'renderer', 'editToPlanPaintMs')} / ${num(r, 'renderer', 'sectionsAfterEditPaintMs')} / ${num(r, 'renderer', 'sectionsWithoutEditPaintMs')} | ${num(r, 'renderer', 'sectionsCompleteAfterEditMs')} | ${num(r, 'renderer', 'longTasksOver50ms')} (${num(r, 'renderer', 'scrollLongTasksPerRun')}) | ${num(r, 'renderer', 'scrollLongestTaskMs')} |`,
     '',
