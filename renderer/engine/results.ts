@@ -114,4 +114,16 @@ export interface StudentResult {
   /** Effective weights (percent, summing to 100 over counted categories), keyed by category id. */
   readonly effectiveWeights: Readonly<Record<string, number>>;
   readonly lines: readonly ExplanationLine[];
+  /**
+   * Optional shortcut to one category's status and percent — the same as the first category line
+   * of `lines` with that id — for results that can answer it without building the lines (the fast
+   * path's, engine/fast/courseResult.ts). Undefined when no category has that id.
+   */
+  categoryPercent?(categoryId: string): CategoryPercent | undefined;
+}
+
+/** A category's status and percent for one student, as in its category line. */
+export interface CategoryPercent {
+  readonly status: CategoryStatus;
+  readonly percent: number | null;
 }

@@ -13,7 +13,7 @@
  * Left-out counts are returned by reason so the UI can state them beside the numbers.
  */
 import type { Gradebook } from '../model';
-import type { CategoryStatus, StudentResult } from '../results';
+import type { CategoryPercent, CategoryStatus, StudentResult } from '../results';
 
 export type Measure =
   | { readonly kind: 'final' }
@@ -116,8 +116,8 @@ export function measureValues(book: Gradebook, results: readonly StudentResult[]
   } else {
     label = `${measure.categoryId} (category %)`;
     book.students.forEach((_, i) => {
-      const line = results[i]?.lines.find((l) => l.kind === 'category' && l.categoryId === measure.categoryId);
-      if (line === undefined || line.kind !== 'category') {
+      const line = categoryPercentOf(results[i], measure.categoryId);
+      if (line === undefined) {
         throw new Error(`measureValues: no category with id "${measure.categoryId}" in the results`);
       }
       if (line.status === 'counted' && line.percent !== null) push(i, line.percent);
@@ -131,6 +131,14 @@ export function measureValues(book: Gradebook, results: readonly StudentResult[]
   for (const [section, rs] of Object.entries(bySection)) leftOutBySection[section] = tally(rs);
 
   return { label, observations, leftOut: tally(reasons.map((r) => r.reason)), leftOutBySection };
+}
+
+/** The student's category line for `categoryId` — through the result's shortcut when it has one. */
+function categoryPercentOf(result: StudentResult | undefined, categoryId: string): CategoryPercent | undefined {
+  if (result === undefined) return undefined;
+  if (result.categoryPercent !== undefined) return result.categoryPercent(categoryId);
+  const line = result.lines.find((l) => l.kind === 'category' && l.categoryId === categoryId);
+  return line?.kind === 'category' ? line : undefined;
 }
 
 /** Sections in natural order ("A2" before "A10"), from the roster. */

@@ -6,6 +6,7 @@
  *   finals, letters, grade points, weighted and adjusted percents: read from the fast grades
  *     (property-tested === to gradeCourse in tests/engine/fast/gradeCompiled.test.ts);
  *   effectiveWeights (on first read): effectiveWeightsOf over the category statuses;
+ *   categoryPercent(id): a category line's status and percent, from the fast category percents;
  *   lines (on first read): explainStudent — the plain weighStudent + finishStudent of that one
  *     student, with the course's adjustments computed once per result by adjustCourse from the
  *     fast weighted percents (a scale-to-mean step needs the group mean; the rule stays in
@@ -23,8 +24,8 @@ import type { AdjustedValues } from '../grading/adjustments';
 import { checkPlan } from '../grading/checkPlan';
 import { adjustCourse, explainStudent, layoutFor, type CategoryLayout, type CourseResult } from '../grading/gradeCourse';
 import type { Gradebook, GradingPlan } from '../model';
-import type { ExplanationLine, StudentResult } from '../results';
-import type { CompiledCourse } from './compileCourse';
+import type { CategoryPercent, ExplanationLine, StudentResult } from '../results';
+import { CATEGORY_STATUSES, type CompiledCourse } from './compileCourse';
 import { effectiveWeightsOf, type FastGrades } from './gradeCompiled';
 
 /** What the lazy parts of every student of one result share. */
@@ -40,7 +41,27 @@ class Explainer {
     grades: FastGrades,
   ) {
     // Copies of what a later read needs: the live arrays change with the next edit.
-    this.grades = { ...grades, weighted: grades.weighted.slice(), hasWeighted: grades.hasWeighted.slice(), catStatus: grades.catStatus.slice() };
+    this.grades = {
+      ...grades,
+      weighted: grades.weighted.slice(),
+      hasWeighted: grades.hasWeighted.slice(),
+      catStatus: grades.catStatus.slice(),
+      catPercent: grades.catPercent.slice(),
+    };
+    const { categories } = course.compiled;
+    for (let c = categories.length - 1; c >= 0; c--) this.categoryIndex.set(categories[c]!.id, c); // first index wins
+  }
+
+  private readonly categoryIndex = new Map<string, number>();
+
+  /** The category line's status and percent from the fast grades (catStatus, catPercent). */
+  categoryPercent(s: number, categoryId: string): CategoryPercent | undefined {
+    const c = this.categoryIndex.get(categoryId);
+    if (c === undefined) return undefined;
+    const k = s * this.course.compiled.categories.length + c;
+    const status = CATEGORY_STATUSES[this.grades.catStatus[k]!]!;
+    const p = this.grades.catPercent[k]!;
+    return { status, percent: status === 'counted' && p === p ? p : null };
   }
 
   effectiveWeights(s: number): Readonly<Record<string, number>> {
@@ -84,6 +105,10 @@ class LazyStudentResult implements StudentResult {
   get lines(): readonly ExplanationLine[] {
     this.explained ??= this.explainer.explain(this.index).lines;
     return this.explained;
+  }
+
+  categoryPercent(categoryId: string): CategoryPercent | undefined {
+    return this.explainer.categoryPercent(this.index, categoryId);
   }
 }
 
