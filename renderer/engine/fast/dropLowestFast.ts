@@ -121,15 +121,32 @@ export function dropLowestPercentsFast(
   s: DropScratch,
   halves: HalvesCheck = CHECK_HALVES,
 ): boolean {
+  return decide(earned, possible, n, requested, s, halves, false);
+}
+
+/**
+ * The common frame of both rules: how many to drop, then the choice (Dinkelbach for total points,
+ * else the lowest ratios) on the points as they are (halvesExact) or on the snapped integers
+ * (snapMillionths); false when neither is exact.
+ */
+function decide(
+  earned: Float64Array,
+  possible: Float64Array,
+  n: number,
+  requested: number,
+  s: DropScratch,
+  halves: HalvesCheck,
+  totalPoints: boolean,
+): boolean {
   const count = dropCount(n, requested);
   s.dropped.fill(0, 0, n);
   if (count === 0) return true;
-  if (halves === HALVES_EXACT || halvesExact(earned, possible, n)) {
-    dropLowestRatios(earned, possible, n, count, s.dropped);
-    return true;
-  }
-  if (!snapMillionths(earned, possible, n, s)) return false;
-  dropLowestRatios(s.e, s.p, n, count, s.dropped);
+  const exact = halves === HALVES_EXACT || halvesExact(earned, possible, n);
+  if (!exact && !snapMillionths(earned, possible, n, s)) return false;
+  const e = exact ? earned : s.e;
+  const p = exact ? possible : s.p;
+  if (totalPoints) dinkelbach(e, p, n, count, s);
+  else dropLowestRatios(e, p, n, count, s.dropped);
   return true;
 }
 
@@ -163,16 +180,7 @@ export function dropForTotalPointsFast(
   s: DropScratch,
   halves: HalvesCheck = CHECK_HALVES,
 ): boolean {
-  const count = dropCount(n, requested);
-  s.dropped.fill(0, 0, n);
-  if (count === 0) return true;
-  if (halves === HALVES_EXACT || halvesExact(earned, possible, n)) {
-    dinkelbach(earned, possible, n, count, s);
-    return true;
-  }
-  if (!snapMillionths(earned, possible, n, s)) return false;
-  dinkelbach(s.e, s.p, n, count, s);
-  return true;
+  return decide(earned, possible, n, requested, s, halves, true);
 }
 
 function dinkelbach(e: Float64Array, p: Float64Array, n: number, count: number, s: DropScratch): void {
