@@ -156,42 +156,33 @@ describe('browser harness spreadsheet reading', () => {
     code: "const { parentPort } = require('node:worker_threads'); parentPort.postMessage({ type: 'ready' }); parentPort.on('message', () => { for (;;) {} });",
   };
 
-  it('stops a parse that never ends at the time limit, in the limit message’s words', async () => {
+  const demoCsv = join(repoRoot, 'demo-data', 'glaciology-231.csv');
+
+  /** previewSpreadsheet(demoCsv, override) through a fresh harness; its parsed reply. */
+  async function previewThroughHarness(options: Parameters<typeof startHarness>[0], override: object): Promise<unknown> {
     const userDataDir = await mkdtemp(join(tmpdir(), 'weighbridge-harness-test-'));
-    const harness = await startHarness({ userDataDir, importWorker: spinningWorker });
+    const harness = await startHarness({ ...options, userDataDir });
     try {
-      const base = new URL(harness.url);
-      const file = join(repoRoot, 'demo-data', 'glaciology-231.csv');
-      const reply = await send(base, '/rpc/previewSpreadsheet', {
+      const reply = await send(new URL(harness.url), '/rpc/previewSpreadsheet', {
         method: 'POST',
         headers: { 'content-type': 'application/json', [TOKEN_HEADER]: harness.token },
-        body: JSON.stringify([file, { limits: { maxSeconds: 1 } }]),
+        body: JSON.stringify([demoCsv, override]),
       });
-      const result = JSON.parse(reply.body) as { ok: boolean; code?: string; message?: string };
-      expect(result).toMatchObject({ ok: false, code: 'timeout' });
-      expect(result.message).toContain('Reading "glaciology-231.csv" took longer than 1 s and was stopped.');
+      return JSON.parse(reply.body);
     } finally {
       await harness.close();
       await rm(userDataDir, { recursive: true, force: true });
     }
+  }
+
+  it('stops a parse that never ends at the time limit, in the limit message’s words', async () => {
+    const result = (await previewThroughHarness({ importWorker: spinningWorker }, { limits: { maxSeconds: 1 } })) as { ok: boolean; message?: string };
+    expect(result).toMatchObject({ ok: false, code: 'timeout' });
+    expect(result.message).toContain('Reading "glaciology-231.csv" took longer than 1 s and was stopped.');
   });
 
   it('reads through the same worker by default and gets the service’s answer', async () => {
-    const userDataDir = await mkdtemp(join(tmpdir(), 'weighbridge-harness-test-'));
-    const harness = await startHarness({ userDataDir });
-    try {
-      const base = new URL(harness.url);
-      const file = join(repoRoot, 'demo-data', 'glaciology-231.csv');
-      const reply = await send(base, '/rpc/previewSpreadsheet', {
-        method: 'POST',
-        headers: { 'content-type': 'application/json', [TOKEN_HEADER]: harness.token },
-        body: JSON.stringify([file, {}]),
-      });
-      const direct = await previewSpreadsheet(file);
-      expect(JSON.parse(reply.body)).toEqual(JSON.parse(JSON.stringify(direct)));
-    } finally {
-      await harness.close();
-      await rm(userDataDir, { recursive: true, force: true });
-    }
+    const direct = await previewSpreadsheet(demoCsv);
+    expect(await previewThroughHarness({}, {})).toEqual(JSON.parse(JSON.stringify(direct)));
   });
 });
