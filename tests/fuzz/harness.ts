@@ -146,7 +146,7 @@ export class FuzzRunner {
   }
 }
 
-function checkResult(step: string, r: Result<unknown>, c: FuzzCase): string[] {
+export function checkResult(step: string, r: Result<unknown>, c: FuzzCase): string[] {
   if (typeof r !== 'object' || r === null || typeof r.ok !== 'boolean') return [`${step}: not a Result`];
   if (r.ok) return [];
   const out: string[] = [];
@@ -156,7 +156,10 @@ function checkResult(step: string, r: Result<unknown>, c: FuzzCase): string[] {
   // (xlsx 0.20.3, found by the long suite). We cannot change the library; the isolated worker's
   // time limit stops it and the user reads the time-limit message, so for a .xls this is counted
   // as a contained library hang, not a defect. Any other file that times out is a hang.
-  else if (r.code === 'timeout' && !isLegacyXls(c.bytes)) out.push(`${step}: code 'timeout' (hang): ${r.message}`);
+  // (Both cases stop here: a legacy .xls timeout must not fall through to "unexpected code".)
+  else if (r.code === 'timeout') {
+    if (!isLegacyXls(c.bytes)) out.push(`${step}: code 'timeout' (hang): ${r.message}`);
+  }
   // A ZIP that declares more than the memory limit is refused before it is opened: a sound
   // answer for any damaged file. Running out of memory is sound only for cases built for it.
   else if (r.code === 'too-large' && c.mayExhaust !== true && !r.message.includes('when unpacked')) out.push(`${step}: code 'too-large' on a case not built to exhaust memory: ${r.message}`);
