@@ -13,7 +13,7 @@ const timeout: Result<unknown> = {
   code: 'timeout',
   message: 'Reading "course.xls" took longer than 60 s and was stopped. The file may be damaged or far larger than a gradebook; if it is the right file, raise the time limit in the import limits and try again.',
 };
-// The OLE2 compound-file signature that opens every legacy .xls (MS-CFB §2.2, header signature).
+// The OLE2 compound-file signature that opens every legacy .xls (MS-CFB §2.2, the header signature; section from memory).
 const xlsBytes = Uint8Array.of(0xd0, 0xcf, 0x11, 0xe0, 0xa1, 0xb1, 0x1a, 0xe1, 0, 0);
 
 describe('fuzz harness verdicts on a time-limit stop', () => {

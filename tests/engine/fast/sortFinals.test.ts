@@ -1,7 +1,8 @@
 /**
- * sortFinals must give exactly Float64Array.prototype.sort's order (ECMAScript 2024 §23.2.3.29,
- * numeric comparison) — on values on its rounding grid (the counting sort's case), off it (where it
- * must detect the grid does not hold and fall back), and on wide ranges.
+ * sortFinals must give exactly Float64Array.prototype.sort's order (numeric comparison; ECMAScript
+ * 2024 §23.2.3.29, the section number from memory) — on values on its rounding grid (the counting
+ * sort's case), off it (where it must detect the grid does not hold and fall back), and on wide
+ * ranges.
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
